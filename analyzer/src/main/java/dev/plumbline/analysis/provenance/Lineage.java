@@ -1,0 +1,51 @@
+package dev.plumbline.analysis.provenance;
+
+import com.github.javaparser.ast.Node;
+import java.util.Comparator;
+
+/**
+ * A body of data identified by the place it entered the method: a load call, a constructor, a
+ * parameter or a field. Splitting a lineage yields parts of the same lineage, so a normalizer
+ * fitted on the whole lineage can be matched with a split of it.
+ *
+ * <p>Equality is identity of the site node (JavaParser's {@code Node.equals} is structural).
+ */
+public final class Lineage {
+  public static final Comparator<Lineage> BY_POSITION = Comparator
+      .comparingInt((Lineage l) -> l.site.getBegin().map(p -> p.line).orElse(0))
+      .thenComparingInt(l -> l.site.getBegin().map(p -> p.column).orElse(0))
+      .thenComparing(l -> l.label);
+
+  private final Node site;
+  private final String label;
+
+  public Lineage(Node site, String label) {
+    this.site = site;
+    this.label = label;
+  }
+
+  /** Where the data entered: a call, a {@code new}, a parameter or a field declarator. */
+  public Node site() {
+    return site;
+  }
+
+  /** How the code names the data there, e.g. {@code allRows} or {@code loader.load()}. */
+  public String label() {
+    return label;
+  }
+
+  @Override
+  public boolean equals(Object o) {
+    return o instanceof Lineage other && other.site == site;
+  }
+
+  @Override
+  public int hashCode() {
+    return System.identityHashCode(site);
+  }
+
+  @Override
+  public String toString() {
+    return label + "@" + site.getBegin().map(p -> p.line + ":" + p.column).orElse("?");
+  }
+}

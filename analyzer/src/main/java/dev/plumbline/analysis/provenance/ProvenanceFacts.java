@@ -1,0 +1,71 @@
+package dev.plumbline.analysis.provenance;
+
+import com.github.javaparser.ast.Node;
+import com.github.javaparser.ast.expr.Expression;
+import com.github.javaparser.ast.expr.MethodCallExpr;
+import dev.plumbline.flow.ControlFlowGraph;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
+import java.util.Set;
+
+/**
+ * What the provenance analysis publishes for one file, for rules to query. Every fact names the
+ * callable graph it was found in, so a rule can relate facts of the same method.
+ */
+public final class ProvenanceFacts {
+
+  /** A preprocessor fitted to data. {@code learns} is false for fixed-range scalers. */
+  public record Fit(ControlFlowGraph graph, MethodCallExpr call, Expression preprocessor,
+      Expression argument, DataValue data, boolean learns) {}
+
+  /** Rows of some lineages split into parts at {@code call}. */
+  public record Split(ControlFlowGraph graph, Expression call, Expression splitData, DataValue data) {}
+
+  /** A statistic computed over data at {@code call} and used to rescale data at {@code use}. */
+  public record StatisticUse(ControlFlowGraph graph, MethodCallExpr call, Expression over,
+      DataValue data, Expression use) {}
+
+  private final List<Fit> fits = new ArrayList<>();
+  private final List<Split> splits = new ArrayList<>();
+  private final List<StatisticUse> statisticUses = new ArrayList<>();
+
+  void add(Fit f) {
+    fits.add(f);
+  }
+
+  void add(Split s) {
+    splits.add(s);
+  }
+
+  void add(StatisticUse s) {
+    statisticUses.add(s);
+  }
+
+  public List<Fit> fits() {
+    return Collections.unmodifiableList(fits);
+  }
+
+  public List<Split> splits() {
+    return Collections.unmodifiableList(splits);
+  }
+
+  public List<StatisticUse> statisticUses() {
+    return Collections.unmodifiableList(statisticUses);
+  }
+
+  /** Splits in the same graph that split any of the given lineages, in source order. */
+  public List<Split> splitsOf(ControlFlowGraph graph, Set<Lineage> lineages) {
+    List<Split> out = new ArrayList<>();
+    for (Split s : splits) {
+      if (s.graph() == graph && s.data().lineages().stream().anyMatch(lineages::contains)) {
+        out.add(s);
+      }
+    }
+    return out;
+  }
+
+  static boolean sameNode(Node a, Node b) {
+    return a == b;
+  }
+}

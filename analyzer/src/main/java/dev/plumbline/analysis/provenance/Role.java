@@ -1,0 +1,12 @@
+package dev.plumbline.analysis.provenance;
+
+/** Which rows of a data lineage a value holds. */
+public enum Role {
+  /** All rows: the data before any split. */
+  WHOLE,
+  TRAIN,
+  VALIDATION,
+  TEST,
+  /** A held-out part whose purpose (validation or test) the code does not say. */
+  HELD_OUT
+}

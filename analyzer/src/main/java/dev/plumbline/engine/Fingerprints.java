@@ -1,0 +1,55 @@
+package dev.plumbline.engine;
+
+import com.github.javaparser.ast.Node;
+import com.github.javaparser.ast.body.CallableDeclaration;
+import com.github.javaparser.ast.body.TypeDeclaration;
+import java.nio.charset.StandardCharsets;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.HashMap;
+import java.util.HexFormat;
+import java.util.Map;
+
+/**
+ * Stable identities for findings, independent of line numbers: a finding keeps its fingerprint
+ * when unrelated lines are added above it, and a second instance of the same defect in the same
+ * method gets a different one.
+ *
+ * <p>Identity = rule id, file, enclosing type and callable signature, the harmful code's text
+ * with whitespace collapsed, and the occurrence number of that same text within the callable.
+ * Hashed with SHA-256, 16 hex digits kept.
+ */
+final class Fingerprints {
+  private final Map<String, Integer> occurrences = new HashMap<>();
+
+  /** Call in report order within one file so occurrence numbers are deterministic. */
+  String next(String ruleId, String uri, Node node) {
+    String key = ruleId + "\n" + uri + "\n" + enclosingSignature(node) + "\n"
+        + node.toString().replaceAll("\\s+", " ").trim();
+    int occurrence = occurrences.merge(key, 1, Integer::sum);
+    return sha256(key + "\n#" + occurrence).substring(0, 16);
+  }
+
+  private static String enclosingSignature(Node node) {
+    StringBuilder sb = new StringBuilder();
+    Node current = node;
+    while (current != null) {
+      if (current instanceof CallableDeclaration<?> c) {
+        sb.insert(0, "/" + c.getDeclarationAsString(false, false, false));
+      } else if (current instanceof TypeDeclaration<?> t) {
+        sb.insert(0, "/" + t.getNameAsString());
+      }
+      current = current.getParentNode().orElse(null);
+    }
+    return sb.toString();
+  }
+
+  private static String sha256(String s) {
+    try {
+      MessageDigest md = MessageDigest.getInstance("SHA-256");
+      return HexFormat.of().formatHex(md.digest(s.getBytes(StandardCharsets.UTF_8)));
+    } catch (NoSuchAlgorithmException e) {
+      throw new IllegalStateException("SHA-256 is required by every Java platform", e);
+    }
+  }
+}

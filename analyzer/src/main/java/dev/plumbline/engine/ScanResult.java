@@ -1,0 +1,49 @@
+package dev.plumbline.engine;
+
+import dev.plumbline.finding.Finding;
+import dev.plumbline.finding.Notification;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+
+/**
+ * The outcome of a scan, sorted and ready to report.
+ *
+ * @param findings all findings, suppressed ones included, in {@link Finding#ORDER}
+ * @param notifications problems of the run itself, sorted
+ * @param rules the rules that ran, in id order
+ * @param filesDiscovered files chosen for scanning
+ * @param filesAnalyzed files that parsed and were analyzed
+ * @param linesAnalyzed source lines of the analyzed files
+ * @param sources text of each file that has a finding, by report name, for excerpts
+ */
+public record ScanResult(
+    List<Finding> findings,
+    List<Notification> notifications,
+    List<RuleDescriptor> rules,
+    int filesDiscovered,
+    int filesAnalyzed,
+    long linesAnalyzed,
+    Map<String, String> sources) {
+
+  public ScanResult {
+    findings = List.copyOf(findings);
+    notifications = List.copyOf(notifications);
+    rules = List.copyOf(rules);
+    sources = Map.copyOf(sources);
+  }
+
+  /** Whether some input could not be analyzed (exit code 3). */
+  public boolean incomplete() {
+    return notifications.stream().anyMatch(Notification::incomplete);
+  }
+
+  public Optional<String> source(String uri) {
+    return Optional.ofNullable(sources.get(uri));
+  }
+
+  public ScanResult withFindings(List<Finding> replaced) {
+    return new ScanResult(replaced, notifications, rules, filesDiscovered, filesAnalyzed,
+        linesAnalyzed, sources);
+  }
+}

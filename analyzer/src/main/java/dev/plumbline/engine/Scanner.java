@@ -1,0 +1,210 @@
+package dev.plumbline.engine;
+
+import com.github.javaparser.ast.CompilationUnit;
+import dev.plumbline.discover.Discovery;
+import dev.plumbline.discover.SourceFile;
+import dev.plumbline.finding.Finding;
+import dev.plumbline.finding.Location;
+import dev.plumbline.finding.Message;
+import dev.plumbline.finding.Notification;
+import dev.plumbline.finding.RelatedLocation;
+import dev.plumbline.finding.Severity;
+import dev.plumbline.model.ApiModel;
+import dev.plumbline.parse.ParsedSource;
+import dev.plumbline.parse.SourceParser;
+import dev.plumbline.types.ProjectIndex;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.TreeMap;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.ThreadFactory;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.Function;
+
+/**
+ * Runs the pipeline: discover, parse (in parallel), index the project, project-wide analyses,
+ * then rules per file (in parallel), and returns sorted findings and notifications.
+ *
+ * <p>Failures are data: an unreadable or unparsable file, or a rule that throws on one file,
+ * becomes a notification and the rest of the scan completes. Output does not depend on the
+ * number of threads: every parallel stage's results are sorted before use.
+ *
+ * <p>The scanned code is only read and parsed; nothing is compiled, loaded or run.
+ */
+public final class Scanner {
+  /** Analysis threads get a large stack so deeply nested code cannot overflow it. */
+  static final long WORKER_STACK_BYTES = 512L * 1024 * 1024;
+
+  private final ApiModel model;
+  private final List<Rule> rules;
+  private final List<ProjectAnalysis> projectAnalyses;
+  private final ScanListener listener;
+
+  /** Progress callbacks (for a progress display); calls may come from several threads. */
+  public interface ScanListener {
+    ScanListener NONE = new ScanListener() {};
+
+    default void discovered(int files) {}
+
+    default void fileDone(String uri) {}
+  }
+
+  public Scanner(ApiModel model, List<Rule> rules, List<ProjectAnalysis> projectAnalyses,
+      ScanListener listener) {
+    this.model = model;
+    this.rules = rules.stream()
+        .sorted(Comparator.comparing(r -> r.descriptor().id()))
+        .toList();
+    this.projectAnalyses = List.copyOf(projectAnalyses);
+    this.listener = listener;
+  }
+
+  public Scanner(ApiModel model, List<Rule> rules) {
+    this(model, rules, List.of(), ScanListener.NONE);
+  }
+
+  public ScanResult scan(ScanRequest request) {
+    Discovery discovery = new Discovery(new Discovery.Options(request.baseDirectory(),
+        request.includes(), request.excludes(), false));
+    Discovery.Result found = discovery.discover(request.paths());
+    listener.discovered(found.files().size());
+    List<Notification> notes = new ArrayList<>(found.notifications());
+
+    ExecutorService pool = Executors.newFixedThreadPool(request.jobs(), workerThreads());
+    try {
+      SourceParser parser = new SourceParser();
+      List<SourceParser.Outcome> outcomes = parallel(pool, found.files(), parser::parse);
+      List<ParsedSource> parsed = new ArrayList<>();
+      for (SourceParser.Outcome o : outcomes) {
+        notes.addAll(o.notifications());
+        o.parsed().ifPresent(parsed::add);
+      }
+      List<CompilationUnit> units = parsed.stream().map(ParsedSource::unit).toList();
+      ProjectIndex index = ProjectIndex.build(model, units);
+      ProjectFacts facts = new ProjectFacts();
+      List<FileContext> contexts = parsed.stream()
+          .map(p -> new FileContext(p, index, facts)).toList();
+      for (ProjectAnalysis pa : projectAnalyses) {
+        try {
+          pa.compute(contexts, index, facts);
+        } catch (RuntimeException | StackOverflowError e) {
+          notes.add(new Notification(Severity.ERROR, Message.of("notification.project-analysis-failed",
+              pa.getClass().getSimpleName(), describe(e)), Optional.empty(), true));
+        }
+      }
+      // Fresh contexts per file for rules: project analyses may have filled the first ones.
+      List<FileOutcome> perFile = parallel(pool, parsed, p -> checkFile(new FileContext(p, index, facts)));
+      List<Finding> findings = new ArrayList<>();
+      Map<String, String> sources = new TreeMap<>();
+      long lines = 0;
+      for (int i = 0; i < parsed.size(); i++) {
+        FileOutcome fo = perFile.get(i);
+        findings.addAll(fo.findings());
+        notes.addAll(fo.notifications());
+        if (!fo.findings().isEmpty()) {
+          sources.put(parsed.get(i).file().uri(), parsed.get(i).text());
+        }
+        lines += parsed.get(i).text().lines().count();
+      }
+      findings.sort(Finding.ORDER);
+      notes.sort(Notification.ORDER);
+      return new ScanResult(findings, notes, rules.stream().map(Rule::descriptor).toList(),
+          found.files().size(), parsed.size(), lines, sources);
+    } finally {
+      pool.shutdownNow();
+    }
+  }
+
+  private record FileOutcome(List<Finding> findings, List<Notification> notifications) {}
+
+  private FileOutcome checkFile(FileContext file) {
+    List<FindingReporter.Report> reports = new ArrayList<>();
+    List<Notification> notes = new ArrayList<>();
+    for (Rule rule : rules) {
+      List<FindingReporter.Report> fromRule = new ArrayList<>();
+      try {
+        rule.check(file, fromRule::add);
+        reports.addAll(fromRule);
+      } catch (RuntimeException | StackOverflowError | LinkageError | AssertionError e) {
+        notes.add(new Notification(Severity.ERROR,
+            Message.of("notification.rule-failed", rule.descriptor().id(), file.uri(), describe(e)),
+            Optional.of(new Location(file.uri(), new dev.plumbline.finding.SourceRange(1, 1, 1, 1))),
+            true));
+      }
+    }
+    listener.fileDone(file.uri());
+    return new FileOutcome(toFindings(file, reports), notes);
+  }
+
+  /** Locates and fingerprints reports, in a deterministic order, dropping exact duplicates. */
+  private static List<Finding> toFindings(FileContext file, List<FindingReporter.Report> reports) {
+    List<FindingReporter.Report> sorted = new ArrayList<>(reports);
+    sorted.sort(Comparator
+        .comparing((FindingReporter.Report r) -> file.locationOf(r.node()))
+        .thenComparing(r -> r.rule().id())
+        .thenComparing(r -> r.message().key())
+        .thenComparing(r -> String.join("\u0000", r.message().arguments())));
+    Fingerprints fingerprints = new Fingerprints();
+    List<Finding> out = new ArrayList<>();
+    FindingReporter.Report previous = null;
+    for (FindingReporter.Report r : sorted) {
+      if (previous != null && previous.node() == r.node() && previous.rule().id().equals(r.rule().id())
+          && previous.message().equals(r.message())) {
+        continue; // two paths to the same defect: report it once
+      }
+      previous = r;
+      List<RelatedLocation> related = r.related().stream()
+          .map(rel -> new RelatedLocation(file.locationOf(rel.node()), rel.message()))
+          .toList();
+      out.add(new Finding(r.rule().id(), r.severity().orElse(r.rule().defaultSeverity()),
+          file.locationOf(r.node()), r.message(), related, r.fixHint(), r.fix(),
+          fingerprints.next(r.rule().id(), file.uri(), r.node()), Optional.empty()));
+    }
+    return out;
+  }
+
+  private static String describe(Throwable e) {
+    String msg = e.getMessage();
+    return e.getClass().getSimpleName() + (msg == null ? "" : ": " + firstLine(msg));
+  }
+
+  private static String firstLine(String s) {
+    int nl = s.indexOf('\n');
+    return nl < 0 ? s : s.substring(0, nl);
+  }
+
+  private static <I, O> List<O> parallel(ExecutorService pool, List<I> inputs, Function<I, O> work) {
+    List<Future<O>> futures = new ArrayList<>();
+    for (I input : inputs) {
+      futures.add(pool.submit(() -> work.apply(input)));
+    }
+    List<O> out = new ArrayList<>();
+    for (Future<O> f : futures) {
+      try {
+        out.add(f.get());
+      } catch (InterruptedException e) {
+        Thread.currentThread().interrupt();
+        throw new IllegalStateException("scan interrupted", e);
+      } catch (ExecutionException e) {
+        // Work items catch their own failures; reaching here is a bug in the engine itself.
+        throw new IllegalStateException("internal error in a scan worker", e.getCause());
+      }
+    }
+    return out;
+  }
+
+  private static ThreadFactory workerThreads() {
+    AtomicInteger n = new AtomicInteger();
+    return r -> {
+      Thread t = new Thread(null, r, "plumbline-worker-" + n.incrementAndGet(), WORKER_STACK_BYTES);
+      t.setDaemon(true);
+      return t;
+    };
+  }
+}

@@ -1,0 +1,88 @@
+package dev.plumbline.model;
+
+/**
+ * What a library method does, as far as the analyses care. The vocabulary is closed so that a
+ * typo in the model fails when the model loads, not silently at analysis time.
+ */
+public enum Effect {
+  // data provenance
+  /** Splits the receiver's rows; the result holds the parts (DL4J {@code splitTestAndTrain}). */
+  SPLIT,
+  /** Splits the receiver and returns the parts as an array in argument order (DJL {@code randomSplit}). */
+  SPLIT_ARRAY,
+  /** Returns one part of a split holder; attribute {@code part}: train, validation or test. */
+  SPLIT_PART,
+  /** Returns data with the same rows (or a subset thereof) as the receiver: getters, copies, views. */
+  DERIVE,
+  /** Constructor or factory wrapping its data arguments (iterators over lists, data sets from arrays). */
+  WRAP,
+  /** Fits a preprocessor to the data argument; attribute {@code learns}: whether statistics are learned. */
+  FIT_PREPROCESSOR,
+  /** Applies a fitted preprocessor to the data argument. */
+  APPLY_PREPROCESSOR,
+  /** Attaches a preprocessor (argument) to the receiver iterator. */
+  ATTACH_PREPROCESSOR,
+  /**
+   * Computes a statistic over the receiver's rows that is not a tensor reduction. Reductions
+   * that are statistics (mean, standard deviation, min, max) are {@link #REDUCE} with attribute
+   * {@code statistic=true}.
+   */
+  STATISTIC,
+  /** Trains a model on the data argument. */
+  TRAIN,
+  /** Evaluates a model on the data argument and returns a score or evaluation. */
+  EVALUATE,
+  /** Runs the model forward on the input argument. */
+  PREDICT,
+  /** Shuffles the receiver's rows in place; attribute {@code seeded}: whether a seed argument is given. */
+  SHUFFLE,
+  /** Sets a random seed. */
+  SEED,
+
+  // tensors
+  /** Creates a tensor; attribute {@code shape}: how the shape is given (varargs, shape-object, data). */
+  CREATE,
+  RESHAPE,
+  PERMUTE,
+  TRANSPOSE,
+  MATMUL,
+  /**
+   * Reduces along axes. Attribute {@code keepDims}: "true", "false", or "paramN" when the
+   * boolean parameter N says so; {@code statistic=true} for mean, deviation, min and max.
+   */
+  REDUCE,
+  /** Element-wise binary operation; attribute {@code inPlace}. */
+  ELEMENTWISE,
+  /** Row- or column-vector broadcast operation; attributes {@code inPlace}, {@code vector}: row|column. */
+  VECTOR_OP,
+  CONCAT,
+  /** Returns a Java scalar detached from any graph or scope. */
+  TO_SCALAR,
+  /** Returns a copy detached from the autograd graph. */
+  DETACH,
+  /** Returns a copy of the receiver. */
+  COPY,
+  /** Reads a shape or one dimension of it. */
+  SHAPE_QUERY,
+
+  // scopes
+  /** Opens an autograd recording scope. */
+  OPEN_GRADIENT_SCOPE,
+  /** Opens a memory scope (manager, workspace). */
+  OPEN_MEMORY_SCOPE,
+  /** Runs the forward pass of a model under training. */
+  FORWARD,
+  /** Computes a loss. */
+  LOSS,
+  BACKWARD,
+  /** Releases native memory now. */
+  CLOSE,
+
+  // configuration
+  /** Configuration builder setter for a hyperparameter; attribute {@code hyperparameter}. */
+  CONFIGURE,
+  /** Early-stopping configuration taking a score calculator or data. */
+  EARLY_STOPPING,
+  /** A call with no effect the analyses model; listed so the reflection check covers it. */
+  NONE
+}

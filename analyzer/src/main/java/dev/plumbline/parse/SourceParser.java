@@ -1,0 +1,104 @@
+package dev.plumbline.parse;
+
+import com.github.javaparser.JavaParser;
+import com.github.javaparser.ParseResult;
+import com.github.javaparser.ParserConfiguration;
+import com.github.javaparser.Problem;
+import com.github.javaparser.TokenRange;
+import com.github.javaparser.ast.CompilationUnit;
+import dev.plumbline.discover.SourceFile;
+import dev.plumbline.finding.Location;
+import dev.plumbline.finding.Message;
+import dev.plumbline.finding.Notification;
+import dev.plumbline.finding.Severity;
+import dev.plumbline.finding.SourceRange;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+
+/**
+ * Reads and parses one file. Never throws for bad input: an unreadable, oversized or
+ * unparsable file yields notifications and no tree, and the scan goes on with other files.
+ *
+ * <p>A file with any syntax problem is not analyzed at all: JavaParser recovers from some
+ * errors, but facts drawn from a guessed tree would not meet the precision bar.
+ */
+public final class SourceParser {
+  /** Larger files are skipped: no hand-written training code comes near this. */
+  public static final long MAX_FILE_BYTES = 16L * 1024 * 1024;
+
+  /** The outcome for one file: a tree (maybe with warnings) or only notifications. */
+  public record Outcome(Optional<ParsedSource> parsed, List<Notification> notifications) {}
+
+  /** A new parser per call: JavaParser instances are not thread-safe. */
+  private static JavaParser newParser() {
+    ParserConfiguration config = new ParserConfiguration()
+        .setLanguageLevel(ParserConfiguration.LanguageLevel.JAVA_21)
+        .setCharacterEncoding(java.nio.charset.StandardCharsets.UTF_8);
+    return new JavaParser(config);
+  }
+
+  public Outcome parse(SourceFile file) {
+    List<Notification> notes = new ArrayList<>();
+    byte[] bytes;
+    try {
+      long size = Files.size(file.path());
+      if (size > MAX_FILE_BYTES) {
+        notes.add(fileNote(file, Severity.WARNING, "notification.file-too-large", true,
+            file.uri(), String.valueOf(size), String.valueOf(MAX_FILE_BYTES)));
+        return new Outcome(Optional.empty(), notes);
+      }
+      bytes = Files.readAllBytes(file.path());
+    } catch (IOException | SecurityException e) {
+      notes.add(fileNote(file, Severity.ERROR, "notification.unreadable-file", true,
+          file.uri(), String.valueOf(e.getMessage())));
+      return new Outcome(Optional.empty(), notes);
+    }
+    SourceText decoded = SourceText.decode(bytes);
+    if (decoded.hadInvalidBytes()) {
+      notes.add(fileNote(file, Severity.WARNING, "notification.invalid-utf8", false, file.uri()));
+    }
+    return parseText(file, decoded.text(), LineMap.IDENTITY, notes);
+  }
+
+  /** Parses text already in memory (tests, notebooks). */
+  public Outcome parseText(SourceFile file, String text, LineMap lines, List<Notification> notes) {
+    List<Notification> out = new ArrayList<>(notes);
+    ParseResult<CompilationUnit> result;
+    try {
+      result = newParser().parse(text);
+    } catch (StackOverflowError | RuntimeException e) {
+      out.add(fileNote(file, Severity.ERROR, "notification.parse-crash", true, file.uri(),
+          e.getClass().getSimpleName()));
+      return new Outcome(Optional.empty(), out);
+    }
+    if (!result.isSuccessful() || result.getResult().isEmpty()) {
+      Problem first = result.getProblems().isEmpty() ? null : result.getProblems().get(0);
+      SourceRange range = first == null ? new SourceRange(1, 1, 1, 1) : first.getLocation()
+          .flatMap(TokenRange::toRange)
+          .map(r -> new SourceRange(lines.reportedLine(r.begin.line), Math.max(1, r.begin.column),
+              lines.reportedLine(r.begin.line), Math.max(1, r.begin.column)))
+          .orElse(new SourceRange(1, 1, 1, 1));
+      String detail = first == null ? "unknown syntax error" : firstLine(first.getMessage());
+      out.add(new Notification(Severity.ERROR,
+          Message.of("notification.syntax-error", file.uri(), detail),
+          Optional.of(new Location(file.uri(), range)), true));
+      return new Outcome(Optional.empty(), out);
+    }
+    return new Outcome(Optional.of(new ParsedSource(file, text, result.getResult().get(), lines)), out);
+  }
+
+  private static String firstLine(String s) {
+    int nl = s.indexOf('\n');
+    String line = nl < 0 ? s : s.substring(0, nl);
+    return line.length() > 200 ? line.substring(0, 197) + "..." : line;
+  }
+
+  private static Notification fileNote(SourceFile file, Severity level, String key,
+      boolean incomplete, String... args) {
+    return new Notification(level, Message.of(key, (Object[]) args),
+        Optional.of(new Location(file.uri(), new SourceRange(1, 1, 1, 1))), incomplete);
+  }
+}

@@ -1,0 +1,70 @@
+package dev.plumbline.report;
+
+import dev.plumbline.finding.Finding;
+import dev.plumbline.finding.Notification;
+import dev.plumbline.finding.RelatedLocation;
+import dev.plumbline.finding.Severity;
+import java.io.PrintWriter;
+import java.util.Optional;
+
+/**
+ * Terminal output in the usual compiler diagnostic style:
+ * <pre>
+ * path:line:col: severity: message [rule-id]
+ *     offending line
+ *     ^~~~~~~~~~
+ *   path:line:col: note: related place
+ *   fix: hint
+ * </pre>
+ * Suppressed findings are not printed; they are counted in the summary.
+ */
+public final class TextReport {
+  private TextReport() {}
+
+  public static void write(ReportContext ctx, PrintWriter out) {
+    int shown = 0;
+    int suppressed = 0;
+    int[] bySeverity = new int[Severity.values().length];
+    for (Finding f : ctx.result().findings()) {
+      if (f.isSuppressed()) {
+        suppressed++;
+        continue;
+      }
+      shown++;
+      bySeverity[f.severity().ordinal()]++;
+      out.println(f.location().display() + ": " + f.severity().label() + ": "
+          + ctx.messages().render(f.message()) + " [" + f.ruleId() + "]");
+      String text = ctx.result().source(f.location().uri()).orElse("");
+      Optional<String> line = Excerpts.line(text, f.location().range().startLine());
+      if (line.isPresent()) {
+        out.println("    " + line.get());
+        out.println("    " + Excerpts.caret(line.get(), f.location().range()));
+      }
+      for (RelatedLocation r : f.related()) {
+        out.println("  " + r.location().display() + ": note: " + ctx.messages().render(r.message()));
+      }
+      out.println("  fix: " + ctx.messages().render(f.fixHint()));
+      out.println();
+    }
+    for (Notification n : ctx.result().notifications()) {
+      String where = n.location().map(l -> l.display() + ": ").orElse("");
+      out.println(where + n.level().label() + ": " + ctx.messages().render(n.message())
+          + " [plumbline]");
+    }
+    StringBuilder summary = new StringBuilder();
+    summary.append(shown).append(shown == 1 ? " finding" : " findings");
+    summary.append(" (").append(bySeverity[Severity.ERROR.ordinal()]).append(" errors, ")
+        .append(bySeverity[Severity.WARNING.ordinal()]).append(" warnings, ")
+        .append(bySeverity[Severity.NOTE.ordinal()]).append(" notes)");
+    if (suppressed > 0) {
+      summary.append(", ").append(suppressed).append(" suppressed");
+    }
+    summary.append(" in ").append(ctx.result().filesAnalyzed()).append(" of ")
+        .append(ctx.result().filesDiscovered()).append(" files");
+    if (ctx.result().incomplete()) {
+      summary.append("; analysis incomplete");
+    }
+    out.println(summary);
+    out.flush();
+  }
+}

@@ -1,0 +1,87 @@
+package dev.plumbline.rules.leak;
+
+import com.github.javaparser.ast.Node;
+import dev.plumbline.analysis.provenance.DataValue;
+import dev.plumbline.analysis.provenance.Lineage;
+import dev.plumbline.analysis.provenance.ProvenanceAnalysis;
+import dev.plumbline.analysis.provenance.ProvenanceFacts;
+import dev.plumbline.analysis.provenance.Role;
+import dev.plumbline.engine.FileContext;
+import dev.plumbline.engine.FindingReporter;
+import dev.plumbline.engine.Rule;
+import dev.plumbline.engine.RuleDescriptor;
+import dev.plumbline.finding.Severity;
+import dev.plumbline.rules.Snippets;
+import java.util.List;
+
+/**
+ * A preprocessor or statistic learned from rows that the same code later splits into training
+ * and held-out parts: the held-out rows shaped what the model sees, so held-out scores are
+ * optimistic. Certain (error) when every path gives whole rows; possible (warning) when some
+ * path gives whole rows and another a part.
+ */
+public final class PreprocessingBeforeSplitRule implements Rule {
+  public static final String ID = "leak.preprocessing-before-split";
+  static final RuleDescriptor DESCRIPTOR =
+      new RuleDescriptor(ID, Severity.ERROR, List.of("leakage", "correctness", "preprocessing"));
+
+  @Override
+  public RuleDescriptor descriptor() {
+    return DESCRIPTOR;
+  }
+
+  @Override
+  public void check(FileContext file, FindingReporter reporter) {
+    ProvenanceFacts facts = file.analysis(ProvenanceAnalysis.KEY);
+    for (ProvenanceFacts.Fit fit : facts.fits()) {
+      if (!fit.learns() || fit.data().kind() != DataValue.Kind.DATA || !fit.data().holds(Role.WHOLE)) {
+        continue;
+      }
+      List<ProvenanceFacts.Split> splits = facts.splitsOf(fit.graph(), fit.data().lineages());
+      if (splits.isEmpty()) {
+        continue;
+      }
+      ProvenanceFacts.Split split = splits.get(0);
+      boolean certain = fit.data().onlyWhole();
+      reporter.at(this, fit.call())
+          .message(certain ? ID : ID + ".possible", Snippets.of(fit.preprocessor()),
+              Snippets.of(fit.argument()), Snippets.of(split.splitData()), Snippets.line(split.call()))
+          .related(split.call(), "related.split-here", Snippets.of(split.splitData()))
+          .related(entry(fit.data(), split), "related.data-enters", Snippets.of(fit.argument()))
+          .fix(ID + ".fix.fit-on-train", Snippets.of(fit.preprocessor()))
+          .severity(certain ? Severity.ERROR : Severity.WARNING)
+          .emit();
+    }
+    for (ProvenanceFacts.StatisticUse use : facts.statisticUses()) {
+      DataValue over = use.data();
+      if (!over.holds(Role.WHOLE)) {
+        continue;
+      }
+      List<ProvenanceFacts.Split> splits = facts.splitsOf(use.graph(), over.lineages());
+      if (splits.isEmpty()) {
+        continue;
+      }
+      ProvenanceFacts.Split split = splits.get(0);
+      boolean certain = over.roles().equals(java.util.EnumSet.of(Role.WHOLE));
+      reporter.at(this, use.call())
+          .message(certain ? ID + ".statistic" : ID + ".statistic-possible",
+              use.call().getNameAsString(), Snippets.of(use.over()), Snippets.of(split.splitData()),
+              Snippets.line(split.call()))
+          .related(split.call(), "related.split-here", Snippets.of(split.splitData()))
+          .related(use.use(), "related.statistic-used", use.call().getNameAsString())
+          .fix(ID + ".fix.statistic-on-train", use.call().getNameAsString())
+          .severity(certain ? Severity.ERROR : Severity.WARNING)
+          .emit();
+    }
+  }
+
+  /** Where the split lineage entered the method, when it is a different place from the split. */
+  private static Node entry(DataValue data, ProvenanceFacts.Split split) {
+    return data.lineages().stream()
+        .filter(l -> split.data().lineages().contains(l))
+        .sorted(Lineage.BY_POSITION)
+        .map(Lineage::site)
+        .findFirst()
+        .orElse(null);
+  }
+}
