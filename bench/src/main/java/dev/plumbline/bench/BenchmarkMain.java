@@ -82,11 +82,11 @@ public final class BenchmarkMain {
     for (int i = 0; i < corpus.size(); i++) {
       copyTree(corpus.get(i), corpusCopy.resolve("root" + i));
     }
-    inputs.add(describe("test corpus", corpusCopy, 10, 20));
+    inputs.add(describe("test corpus", corpusCopy, 5, 10));
     CorpusProjectGenerator generator = new CorpusProjectGenerator(corpus, seed);
     Path one = fresh(work.resolve("generated-1x"));
     generator.generate(one, lines);
-    inputs.add(describe("generated 1x", one, 2, 5));
+    inputs.add(describe("generated 1x", one, 2, 3));
     Path four = fresh(work.resolve("generated-4x"));
     generator.generate(four, 4 * lines);
     inputs.add(describe("generated 4x", four, 1, 3));

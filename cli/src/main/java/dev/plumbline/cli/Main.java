@@ -1,9 +1,12 @@
 package dev.plumbline.cli;
 
+import dev.plumbline.engine.Rule;
+import dev.plumbline.rules.BuiltInRules;
 import java.io.PrintStream;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
+import java.util.List;
 import picocli.CommandLine;
 
 /**
@@ -29,9 +32,15 @@ public final class Main {
   }
 
   public static int run(String[] args, PrintStream out, PrintStream err, Path workingDirectory) {
+    return run(args, out, err, workingDirectory, BuiltInRules.all());
+  }
+
+  /** As {@link #run(String[], PrintStream, PrintStream, Path)} with a given rule set (tests). */
+  static int run(String[] args, PrintStream out, PrintStream err, Path workingDirectory,
+      List<Rule> rules) {
     PrintWriter outWriter = new PrintWriter(new java.io.OutputStreamWriter(out, StandardCharsets.UTF_8), true);
     PrintWriter errWriter = new PrintWriter(new java.io.OutputStreamWriter(err, StandardCharsets.UTF_8), true);
-    Environment env = new Environment(out, outWriter, errWriter, workingDirectory);
+    Environment env = new Environment(out, outWriter, errWriter, workingDirectory, List.copyOf(rules));
     CommandLine cli = new CommandLine(new PlumblineCommand(), new CommandFactory(env));
     cli.setOut(outWriter);
     cli.setErr(errWriter);
@@ -67,8 +76,9 @@ public final class Main {
     }
   }
 
-  /** Injected streams and working directory shared by the subcommands. */
-  record Environment(PrintStream rawOut, PrintWriter out, PrintWriter err, Path workingDirectory) {}
+  /** Injected streams, working directory and the rules a scan runs, shared by the subcommands. */
+  record Environment(PrintStream rawOut, PrintWriter out, PrintWriter err, Path workingDirectory,
+      List<Rule> rules) {}
 
   /** Creates subcommands with the environment injected. */
   private record CommandFactory(Environment env) implements CommandLine.IFactory {

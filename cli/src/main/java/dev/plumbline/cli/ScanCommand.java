@@ -79,7 +79,7 @@ final class ScanCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     Options options = validate();
-    Scanner scanner = new Scanner(ApiModel.loadDefault(), BuiltInRules.all(),
+    Scanner scanner = new Scanner(ApiModel.loadDefault(), env.rules(),
         BuiltInRules.projectAnalyses(), Scanner.ScanListener.NONE);
     ScanResult result = scanner.scan(new ScanRequest(options.paths(), env.workingDirectory(),
         options.includes(), options.excludes(), options.jobs()));
