@@ -240,7 +240,10 @@ public final class ApiModel {
     List<ApiMethod> out = new ArrayList<>();
     for (String t : selfAndSupertypes(receiverType)) {
       for (ApiMethod m : methodsByOwner.getOrDefault(t, List.of())) {
-        if (m.name().equals(name) && m.acceptsArity(arity)) {
+        // A nearer declaration with the same parameters overrides this one (JLS 8.4.8.1),
+        // possibly with a narrower return type, as DL4J's layer builders' build() do.
+        boolean overridden = out.stream().anyMatch(n -> n.params().equals(m.params()) && n.isStatic() == m.isStatic());
+        if (m.name().equals(name) && m.acceptsArity(arity) && !overridden) {
           out.add(m);
         }
       }
@@ -321,6 +324,16 @@ public final class ApiModel {
   private boolean assignable(String from, String to) {
     if (from.equals(to) || to.equals("java.lang.Object")) {
       return true;
+    }
+    if (from.endsWith("[]") || to.endsWith("[]")) {
+      // Arrays convert only to arrays of a reference supertype (JLS 5.1.5); never primitive ones.
+      if (!from.endsWith("[]") || !to.endsWith("[]")) {
+        return false;
+      }
+      String f = from.substring(0, from.length() - 2);
+      String t = to.substring(0, to.length() - 2);
+      return !WIDENING.contains(f) && !WIDENING.contains(t) && !f.equals("boolean") && !t.equals("boolean")
+          && assignable(f, t);
     }
     int f = WIDENING.indexOf(from);
     int t = WIDENING.indexOf(to);

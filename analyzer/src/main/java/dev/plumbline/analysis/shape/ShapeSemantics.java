@@ -332,7 +332,7 @@ public final class ShapeSemantics {
    * axes; DJL counts them from the end. {@code axes} entries of null are unknown.
    */
   public static ShapeOutcome permute(Framework fw, TensorShape source, List<Integer> axes) {
-    if (!source.rankKnown() || axes.contains(null)) {
+    if (!source.rankKnown() || axes.stream().anyMatch(java.util.Objects::isNull)) {
       return ShapeOutcome.undecided(TensorShape.ofRank(axes.size()));
     }
     int r = source.rank();
@@ -391,7 +391,7 @@ public final class ShapeSemantics {
     if (axes == null) {
       return keepDims ? ShapeOutcome.unknown() : ShapeOutcome.succeeds(TensorShape.of());
     }
-    if (axes.isEmpty() || axes.contains(null)) {
+    if (axes.isEmpty() || axes.stream().anyMatch(java.util.Objects::isNull)) {
       return ShapeOutcome.unknown();
     }
     if (!source.rankKnown()) {
@@ -444,7 +444,7 @@ public final class ShapeSemantics {
     if (axes == null) {
       return null;
     }
-    if (!source.rankKnown() || axes.contains(null)) {
+    if (!source.rankKnown() || axes.stream().anyMatch(java.util.Objects::isNull)) {
       return null;
     }
     java.util.TreeSet<Integer> out = new java.util.TreeSet<>();
