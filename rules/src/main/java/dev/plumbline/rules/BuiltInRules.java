@@ -3,7 +3,12 @@ package dev.plumbline.rules;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.Rule;
+import dev.plumbline.rules.check.AssertValidationRule;
 import dev.plumbline.rules.leak.PreprocessingBeforeSplitRule;
+import dev.plumbline.rules.shape.ImplicitBroadcastRule;
+import dev.plumbline.rules.shape.ReducedDimBroadcastRule;
+import dev.plumbline.rules.shape.ShapeMismatchRule;
+import dev.plumbline.rules.shape.UncheckedReshapeRule;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
@@ -20,7 +25,13 @@ public final class BuiltInRules {
   /** All built-in rules, sorted by id. New instances each call; rules are stateless. */
   public static List<Rule> all() {
     return List.<Rule>of(
-            new PreprocessingBeforeSplitRule())
+            new PreprocessingBeforeSplitRule(),
+            // shape rules (issue 4)
+            new ShapeMismatchRule(),
+            new ImplicitBroadcastRule(),
+            new ReducedDimBroadcastRule(),
+            new UncheckedReshapeRule(),
+            new AssertValidationRule())
         .stream()
         .sorted(Comparator.comparing(r -> r.descriptor().id()))
         .toList();

@@ -47,10 +47,25 @@ public final class ShapeFacts {
    * @param outcome what the analysis knows about it
    * @param inPlace whether the receiver holds the result
    * @param reduced set when one operand is a reduction of the other without kept dimensions
+   * @param origins where each operand tensor was made, in this file (null entries when unknown)
    */
   public record Operation(ControlFlowGraph graph, MethodCallExpr call, OpKind kind, Framework framework,
       List<Expression> operands, List<TensorShape> shapes, ShapeOutcome outcome, boolean inPlace,
-      ReducedOperand reduced) {}
+      ReducedOperand reduced, List<Node> origins) {
+
+    /** The operand's text as written, or "?" when there is none. */
+    public String operandText(int i) {
+      return i < operands.size() && operands.get(i) != null ? operands.get(i).toString() : "?";
+    }
+
+    public TensorShape shape(int i) {
+      return i < shapes.size() ? shapes.get(i) : TensorShape.unknown();
+    }
+
+    public Node origin(int i) {
+      return i < origins.size() ? origins.get(i) : null;
+    }
+  }
 
   /**
    * A reshape or permute with computed or inferred sizes (or a project helper that returns one)

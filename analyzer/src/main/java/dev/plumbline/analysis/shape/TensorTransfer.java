@@ -497,8 +497,14 @@ final class TensorTransfer {
     if (use) {
       recordUse(call, tensors);
     }
+    List<com.github.javaparser.ast.Node> origins = new ArrayList<>();
+    for (Tensor t : tensors) {
+      com.github.javaparser.ast.Node o = t.origin() == null ? null : t.origin().node();
+      boolean here = o != null && o.findCompilationUnit().orElse(null) == call.findCompilationUnit().orElse(null);
+      origins.add(here ? o : null);
+    }
     ev.sink.add(new ShapeFacts.Operation(ev.analysis.graph, call, kind, fw, exprs,
-        tensors.stream().map(Tensor::shape).toList(), out, inPlace, reduced));
+        tensors.stream().map(Tensor::shape).toList(), out, inPlace, reduced, java.util.Collections.unmodifiableList(origins)));
   }
 
   void recordUse(com.github.javaparser.ast.Node use, List<Tensor> tensors) {
