@@ -35,7 +35,13 @@ class GoldenCorpusTest {
    * introduced each rule. A rule missing here must have at least one of each.
    */
   private static final Map<String, Integer> MINIMUM_CASES = Map.of(
-      "leak.preprocessing-before-split", 6);
+      "leak.preprocessing-before-split", 6,
+      // shape rules (issue 4)
+      "shape.mismatch", 8,
+      "shape.implicit-broadcast", 8,
+      "shape.reduced-dim-broadcast", 8,
+      "shape.unchecked-reshape", 8,
+      "check.assert-validation", 8);
 
   private static ScanResult result;
   private static List<Expectations.Mark> marks;

@@ -131,9 +131,12 @@ final class HelperCalls {
     if (v instanceof ShapeValue.Tensor t) {
       ev.state = ev.state.forget(Site.of(call));
       Site origin = t.origin() == null || inside(t.origin().node(), decl) ? Site.of(call) : t.origin();
+      // A reduction the helper took of the caller's tensor is, for the caller, taken at the call.
       ShapeValue.Reduction r = t.reducedFrom();
-      if (r != null && (inside(r.call().node(), decl) || inside(r.source().node(), decl))) {
+      if (r != null && inside(r.source().node(), decl)) {
         r = null;
+      } else if (r != null && inside(r.call().node(), decl)) {
+        r = new ShapeValue.Reduction(r.source(), r.sourceShape(), r.axes(), Site.of(call));
       }
       Set<Site> pending = new HashSet<>();
       for (Site s : t.uncheckedReshapes()) {

@@ -281,11 +281,15 @@ final class ShapeChecks {
     sink.add(new ShapeFacts.Assertion(analysis.graph, as, subject, about, shape, analysis.context.inTestCode, holds));
   }
 
-  /** A tensor or data set the condition reads, if any. */
+  /**
+   * A tensor or data set whose contents the condition reads (it is the receiver or an argument of
+   * a call), if any; a bare null test is not a data check.
+   */
   private Expression dataIn(Expression check) {
     List<Expression> found = new ArrayList<>();
     check.walk(Node.TreeTraversal.PREORDER, n -> {
-      if (found.isEmpty() && (n instanceof NameExpr || n instanceof FieldAccessExpr) && n instanceof Expression x) {
+      boolean read = n.getParentNode().orElse(null) instanceof MethodCallExpr;
+      if (found.isEmpty() && read && (n instanceof NameExpr || n instanceof FieldAccessExpr) && n instanceof Expression x) {
         String type = types.typeOf(x);
         if (type != null && (types.project().hasRole(type, TypeRole.TENSOR)
             || types.project().hasRole(type, TypeRole.DATASET))) {

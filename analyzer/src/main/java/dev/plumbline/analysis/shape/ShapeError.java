@@ -24,6 +24,8 @@ public record ShapeError(Kind kind, Dim left, Dim right, int axis, TensorShape s
     IN_PLACE,
     /** Reshape: the new sizes hold a different number of elements. */
     ELEMENT_COUNT,
+    /** Reshape with a size of -1: the other sizes do not divide the number of elements. */
+    NOT_DIVISIBLE,
     /** Reshape: more than one size is -1. */
     TWO_INFERRED,
     /** An axis argument outside the operand's rank. */

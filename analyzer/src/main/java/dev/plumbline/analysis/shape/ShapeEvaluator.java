@@ -107,11 +107,12 @@ final class ShapeEvaluator {
   /** An assert teaches its condition (when asserts run, the path continues only if it holds). */
   private void assertion(AssertStmt as) {
     ShapeChecks checks = new ShapeChecks(analysis);
-    boolean holds = sink != null && checks.alreadyHolds(as.getCheck(), state);
+    ShapeState before = state;
+    boolean holds = sink != null && checks.alreadyHolds(as.getCheck(), before);
     eval(as.getCheck());
     as.getMessage().ifPresent(this::eval);
     if (sink != null) {
-      checks.describeAssertion(as, state, holds, sink);
+      checks.describeAssertion(as, before, holds, sink);
     }
     state = checks.markChecked(as.getCheck(), checks.learn(as.getCheck(), state, true));
   }

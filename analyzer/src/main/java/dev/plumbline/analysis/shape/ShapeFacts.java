@@ -32,8 +32,10 @@ public final class ShapeFacts {
    * @param call the reducing call
    * @param axes the reduced axes, normalized
    * @param sourceShape the shape of the tensor before the reduction
+   * @param viaHelper whether {@code call} is a project helper that reduces inside
    */
-  public record ReducedOperand(int operand, MethodCallExpr call, List<Integer> axes, TensorShape sourceShape) {}
+  public record ReducedOperand(int operand, MethodCallExpr call, List<Integer> axes, TensorShape sourceShape,
+      boolean viaHelper) {}
 
   /**
    * One tensor operation as evaluated on the converged state.
@@ -73,11 +75,12 @@ public final class ShapeFacts {
    *
    * @param reshape the reshaping call, or the call of the helper that reshapes
    * @param helper the helper's name when the reshape happens inside it, else null
+   * @param permute whether the call permutes axes rather than reshaping
    * @param use the first shape-sensitive use
    * @param shape the inferred shape of the reshaped tensor at the use
    */
-  public record UncheckedReshape(ControlFlowGraph graph, MethodCallExpr reshape, String helper, Node use,
-      TensorShape shape) {}
+  public record UncheckedReshape(ControlFlowGraph graph, MethodCallExpr reshape, String helper, boolean permute,
+      Node use, TensorShape shape) {}
 
   /** A network width that certainly disagrees with what DL4J will find at run time. */
   public enum WidthKind {

@@ -315,7 +315,7 @@ public final class ShapeSemantics {
       return ShapeOutcome.succeeds(TensorShape.of(out));
     }
     if (count.divisibleBy(known).isFalse()) {
-      return ShapeOutcome.fails(ShapeError.of(Kind.ELEMENT_COUNT, count, known));
+      return ShapeOutcome.fails(ShapeError.of(Kind.NOT_DIVISIBLE, count, known));
     }
     return ShapeOutcome.undecided(TensorShape.of(out));
   }

@@ -167,16 +167,19 @@ final class TensorTransfer {
   }
 
   /**
-   * A reshape whose sizes are not all known constants (or include {@code -1}) is "computed":
-   * unless the analysis proves the result exactly, or the input's shape was checked, the result
-   * carries a pending unchecked mark until a check or a shape-sensitive use.
+   * A reshape is "computed" when two or more of its sizes are not known constants ({@code -1}
+   * counts): how the elements are split between those sizes then depends on computation the
+   * element count cannot validate, so a wrong value silently lays the data out wrongly. (A single
+   * free size is fixed by the element count, and a wrong one fails loudly.) Unless the analysis
+   * proves the result exactly, or the input's shape was checked, the result carries a pending
+   * unchecked mark until a check or a shape-sensitive use.
    */
   private ShapeValue reshape(MethodCallExpr call, ApiMethod m, Tensor in, List<ShapeValue> args, Framework fw) {
     List<Dim> target = sizes(call.getArguments(), args, m.intAttribute("shapeArg", 0));
     ShapeOutcome out = target == null ? ShapeOutcome.unknown() : ShapeSemantics.reshape(fw, in.shape(), target);
     record(call, OpKind.RESHAPE, fw, scopeList(call), List.of(in), out, false, null, false);
     Tensor result = fresh(call, out, fw);
-    boolean computed = target == null || target.stream().anyMatch(d -> !d.isConstant() || d.is(-1));
+    boolean computed = target == null || target.stream().filter(d -> !d.isConstant() || d.is(-1)).count() >= 2;
     boolean proven = out.succeeds() && out.result().fullyKnown();
     return computed && !in.checked() && !proven ? result.withUnchecked(Set.of(Site.of(call))) : result;
   }
@@ -315,16 +318,20 @@ final class TensorTransfer {
   }
 
   /** Whether one operand is a reduction, without kept dimensions, of the other operand. */
-  private static ShapeFacts.ReducedOperand reducedOperand(Tensor a, Tensor b) {
+  private ShapeFacts.ReducedOperand reducedOperand(Tensor a, Tensor b) {
     if (b.reducedFrom() != null && b.reducedFrom().source().equals(a.origin())) {
-      return new ShapeFacts.ReducedOperand(1, (MethodCallExpr) b.reducedFrom().call().node(),
-          b.reducedFrom().axes(), b.reducedFrom().sourceShape());
+      return reduced(1, b.reducedFrom());
     }
     if (a.reducedFrom() != null && a.reducedFrom().source().equals(b.origin())) {
-      return new ShapeFacts.ReducedOperand(0, (MethodCallExpr) a.reducedFrom().call().node(),
-          a.reducedFrom().axes(), a.reducedFrom().sourceShape());
+      return reduced(0, a.reducedFrom());
     }
     return null;
+  }
+
+  private ShapeFacts.ReducedOperand reduced(int operand, ShapeValue.Reduction r) {
+    MethodCallExpr call = (MethodCallExpr) r.call().node();
+    boolean helper = ev.types.apiMethod(call).isEmpty() && ev.types.projectMethod(call).isPresent();
+    return new ShapeFacts.ReducedOperand(operand, call, r.axes(), r.sourceShape(), helper);
   }
 
   // ------------------------------------------------------------------ joining and indexing
@@ -516,8 +523,10 @@ final class TensorTransfer {
       sites.sort(Comparator.comparingInt(Site::line));
       for (Site s : sites) {
         if (s.node() instanceof MethodCallExpr reshape) {
-          String helper = ev.types.projectMethod(reshape).map(pm -> pm.name()).orElse(null);
-          ev.sink.add(new ShapeFacts.UncheckedReshape(ev.analysis.graph, reshape, helper, use, t.shape()));
+          java.util.Optional<ApiMethod> api = ev.types.apiMethod(reshape);
+          String helper = api.isPresent() ? null : ev.types.projectMethod(reshape).map(pm -> pm.name()).orElse(null);
+          boolean permute = api.map(m -> m.effect() == dev.plumbline.model.Effect.PERMUTE).orElse(false);
+          ev.sink.add(new ShapeFacts.UncheckedReshape(ev.analysis.graph, reshape, helper, permute, use, t.shape()));
         }
       }
     }

@@ -9,6 +9,7 @@ import dev.plumbline.engine.FindingReporter;
 import dev.plumbline.engine.Rule;
 import dev.plumbline.engine.RuleDescriptor;
 import dev.plumbline.finding.Severity;
+import dev.plumbline.rules.Snippets;
 import java.util.List;
 
 /**
@@ -41,7 +42,7 @@ public final class ImplicitBroadcastRule implements Rule {
       if (!a.rankKnown() || !b.rankKnown() || !result.rankKnown() || !expanded(a, result) || !expanded(b, result)) {
         continue;
       }
-      reporter.at(this, op.call())
+      reporter.at(this, Snippets.anchor(op.call()))
           .message(ID, op.call().getNameAsString(), op.operandText(0), a.toString(), op.operandText(1), b.toString(),
               result.toString())
           .fix(ID + ".fix", op.operandText(0), op.operandText(1), a.toString(), b.toString())

@@ -48,13 +48,13 @@ public final class ReducedDimBroadcastRule implements Rule {
       boolean certain = op.outcome().succeeds();
       String reduceName = r.call().getNameAsString();
       String kept = keptShape(r.sourceShape(), r.axes()).toString();
-      reporter.at(this, op.call())
+      reporter.at(this, Snippets.anchor(op.call()))
           .message(certain ? ID : ID + ".possible", op.call().getNameAsString(), op.operandText(source),
               op.shape(source).toString(), Snippets.of(r.call()), reduced.toString(),
               ShapeMismatchRule.axes(r.axes()), reduceName)
-          .related(r.call(), "related.reduced-here", Snippets.of(r.call()), ShapeMismatchRule.axes(r.axes()))
-          .fix(ID + (op.framework() == Framework.DJL ? ".fix.djl" : ".fix.nd4j"), op.operandText(source), reduceName,
-              ShapeMismatchRule.axes(r.axes()), kept)
+          .related(Snippets.anchor(r.call()), "related.reduced-here", Snippets.of(r.call()), ShapeMismatchRule.axes(r.axes()))
+          .fix(ID + (r.viaHelper() ? ".fix.helper" : op.framework() == Framework.DJL ? ".fix.djl" : ".fix.nd4j"),
+              op.operandText(source), reduceName, ShapeMismatchRule.axes(r.axes()), kept, op.call().getNameAsString())
           .severity(certain ? Severity.ERROR : Severity.WARNING)
           .emit();
     }

@@ -54,17 +54,17 @@ public final class ShapeMismatchRule implements Rule {
     String secondShape = binary ? op.shape(1).toString() : "";
     String extra = e.shape() != null ? e.shape().toString()
         : op.shape(0).rankKnown() ? String.valueOf(op.shape(0).rank()) : "?";
-    FindingReporter.Report.Builder b = reporter.at(this, op.call())
+    FindingReporter.Report.Builder b = reporter.at(this, Snippets.anchor(op.call()))
         .message(ID + "." + kind, op.call().getNameAsString(), op.operandText(0), op.shape(0).toString(),
             second, secondShape, dim(e.left()), dim(e.right()), String.valueOf(e.axis()), extra);
     for (int i = 0; i < op.operands().size() && i < 2; i++) {
       if (op.origin(i) != null && op.origin(i) != op.call()) {
-        b.related(op.origin(i), "related.shape-set-here", op.operandText(i), op.shape(i).toString());
+        b.related(Snippets.anchor(op.origin(i)), "related.shape-set-here", op.operandText(i), op.shape(i).toString());
       }
     }
     if (op.reduced() != null) {
       ShapeFacts.ReducedOperand r = op.reduced();
-      b.related(r.call(), "related.reduced-here", Snippets.of(r.call()), axes(r.axes()));
+      b.related(Snippets.anchor(r.call()), "related.reduced-here", Snippets.of(r.call()), axes(r.axes()));
       b.fix(ID + ".fix.keep-dims", Snippets.of(r.call()), axes(r.axes()));
     } else {
       b.fix(ID + ".fix." + kind, op.operandText(0), second, op.call().getNameAsString());
@@ -74,16 +74,18 @@ public final class ShapeMismatchRule implements Rule {
 
   private void width(ShapeFacts.WidthMismatch w, FindingReporter reporter) {
     String key = ID + "." + w.kind().name().toLowerCase(Locale.ROOT).replace('_', '-');
-    FindingReporter.Report.Builder b = reporter.at(this, w.at());
+    FindingReporter.Report.Builder b = reporter.at(this, Snippets.anchor(w.at()));
     switch (w.kind()) {
       case LAYER_INPUT, LIST_LAYER_INPUT -> {
         boolean list = w.kind() == ShapeFacts.WidthKind.LIST_LAYER_INPUT;
-        String name = list ? Snippets.line(w.at()) : layerName(w.at());
-        String from = w.related() == null ? "?" : list ? Snippets.line(w.related()) : layerName(w.related());
+        String name = list ? Snippets.line(Snippets.anchor(w.at())) : layerName(w.at());
+        String from = w.related() == null ? "?"
+            : list ? Snippets.line(Snippets.anchor(w.related())) : layerName(w.related());
         b.message(key, name, dim(w.actual()), from, dim(w.expected()))
             .fix(key + ".fix", name, from, dim(w.expected()));
         if (w.related() != null) {
-          b.related(w.related(), "related.layer-width", from, dim(w.expected()));
+          b.related(Snippets.anchor(w.related()), list ? "related.list-layer-width" : "related.layer-width", from,
+              dim(w.expected()));
         }
       }
       default -> {
@@ -93,7 +95,7 @@ public final class ShapeMismatchRule implements Rule {
         b.message(key, call.getNameAsString(), data, String.valueOf(w.shape()), dim(w.expected()), dim(w.actual()))
             .fix(key + ".fix", data, dim(w.expected()), dim(w.actual()));
         if (w.related() != null) {
-          b.related(w.related(), w.kind() == ShapeFacts.WidthKind.LABELS ? "related.output-layer" : "related.first-layer",
+          b.related(Snippets.anchor(w.related()), w.kind() == ShapeFacts.WidthKind.LABELS ? "related.output-layer" : "related.first-layer",
               dim(w.expected()));
         }
       }

@@ -16,10 +16,12 @@ import dev.plumbline.rules.Snippets;
 import java.util.List;
 
 /**
- * A reshape (or permute) whose sizes are computed or inferred ({@code -1}) and whose result
+ * A reshape whose sizes are computed or inferred ({@code -1}) in two or more places, or a permute
+ * with computed axes, whose result
  * reaches a shape-sensitive use (a product, an element-wise operation with another tensor, a
  * join, a model's input) with no check of its shape in between. A wrong computed size does not
- * always fail: when the element count still matches, the data is silently laid out wrongly.
+ * always fail: when the element count still matches, the data is silently laid out wrongly. A
+ * single free size is fixed by the element count (a wrong one fails loudly), so it is not flagged.
  * Silent when the analysis proves the result exactly, when the input's or the result's shape is
  * checked first (a condition, a precondition, an assert, or a helper that checks and throws),
  * or when all sizes are constants.
@@ -40,10 +42,10 @@ public final class UncheckedReshapeRule implements Rule {
       String use = u.use() instanceof MethodCallExpr m ? m.getNameAsString() : Snippets.of(u.use());
       String holder = holder(reshape);
       int axis = firstUnknownAxis(u.shape());
-      reporter.at(this, reshape)
-          .message(u.helper() == null ? ID : ID + ".helper", reshape.getNameAsString(),
+      reporter.at(this, Snippets.anchor(reshape))
+          .message(u.helper() != null ? ID + ".helper" : u.permute() ? ID + ".permute" : ID, reshape.getNameAsString(),
               ShapeMismatchRule.arguments(reshape), u.shape().toString(), use, Snippets.line(u.use()))
-          .related(u.use(), "related.reshape-used", holder, u.shape().toString())
+          .related(Snippets.anchor(u.use()), "related.reshape-used", holder, u.shape().toString())
           .fix(ID + ".fix", holder, String.valueOf(axis))
           .emit();
     }
