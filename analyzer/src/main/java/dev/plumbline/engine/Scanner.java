@@ -89,7 +89,7 @@ public final class Scanner {
       ProjectIndex index = ProjectIndex.build(model, units);
       ProjectFacts facts = new ProjectFacts();
       List<FileContext> contexts = parsed.stream()
-          .map(p -> new FileContext(p, index, facts)).toList();
+          .map(p -> new FileContext(p, index, facts, request.settings())).toList();
       for (ProjectAnalysis pa : projectAnalyses) {
         try {
           pa.compute(contexts, index, facts);
@@ -99,7 +99,7 @@ public final class Scanner {
         }
       }
       // Fresh contexts per file for rules: project analyses may have filled the first ones.
-      List<FileOutcome> perFile = parallel(pool, parsed, p -> checkFile(new FileContext(p, index, facts)));
+      List<FileOutcome> perFile = parallel(pool, parsed, p -> checkFile(new FileContext(p, index, facts, request.settings())));
       List<Finding> findings = new ArrayList<>();
       Map<String, String> sources = new TreeMap<>();
       long lines = 0;

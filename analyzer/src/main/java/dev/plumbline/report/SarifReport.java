@@ -87,7 +87,12 @@ public final class SarifReport {
       if (results.size() >= MAX_RESULTS) {
         break;
       }
-      results.add(result(f, ruleIndex.getOrDefault(f.ruleId(), -1), messages));
+      Result r = result(f, ruleIndex.getOrDefault(f.ruleId(), -1), messages);
+      if (ctx.baseline().isPresent()) {
+        // Known findings were removed; everything left is new relative to the baseline.
+        r.withBaselineState(Result.BaselineState.NEW);
+      }
+      results.add(r);
     }
     List<com.contrastsecurity.sarif.Notification> notes = new ArrayList<>();
     for (Notification n : ctx.result().notifications()) {
@@ -116,10 +121,26 @@ public final class SarifReport {
         .withColumnKind(Run.ColumnKind.UTF_16_CODE_UNITS)
         .withInvocations(List.of(invocation))
         .withResults(results);
+    if (ctx.baseline().isPresent()) {
+      run.withProperties(runProperties(ctx));
+    }
     return new SarifSchema210()
         .with$schema(URI.create(SCHEMA_URI))
         .withVersion(SarifSchema210.Version._2_1_0)
         .withRuns(List.of(run));
+  }
+
+  /** Baseline counts, so a reader of the log knows how many accepted findings were left out. */
+  private static PropertyBag runProperties(ReportContext ctx) {
+    PropertyBag props = new PropertyBag();
+    ctx.baseline().ifPresent(b -> {
+      Map<String, Object> baseline = new java.util.LinkedHashMap<>();
+      baseline.put("file", b.file());
+      baseline.put("known", b.known());
+      baseline.put("stale", b.stale());
+      props.setAdditionalProperty("plumbline/baseline", baseline);
+    });
+    return props;
   }
 
   private static String baseUri(ReportContext ctx) {
@@ -197,7 +218,11 @@ public final class SarifReport {
     List<Replacement> replacements = new ArrayList<>();
     for (Edit.Replacement r : edit.replacements()) {
       replacements.add(new Replacement()
-          .withDeletedRegion(region(r.range()))
+          .withDeletedRegion(new Region()
+              .withStartLine(r.startLine())
+              .withStartColumn(r.startColumn())
+              .withEndLine(r.endLine())
+              .withEndColumn(r.endColumn()))
           .withInsertedContent(new ArtifactContent().withText(r.text())));
     }
     PropertyBag props = new PropertyBag();

@@ -59,6 +59,13 @@ public final class TextReport {
     if (suppressed > 0) {
       summary.append(", ").append(suppressed).append(" suppressed");
     }
+    ctx.baseline().ifPresent(b -> {
+      summary.append(", ").append(b.known()).append(" known from ").append(b.file());
+      if (b.stale() > 0) {
+        summary.append(" (").append(b.stale()).append(b.stale() == 1 ? " entry" : " entries")
+            .append(" no longer found)");
+      }
+    });
     summary.append(" in ").append(ctx.result().filesAnalyzed()).append(" of ")
         .append(ctx.result().filesDiscovered()).append(" files");
     if (ctx.result().incomplete()) {

@@ -4,11 +4,15 @@ import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.Rule;
 import dev.plumbline.rules.leak.PreprocessingBeforeSplitRule;
+import dev.plumbline.rules.suppression.InvalidSuppressionRule;
+import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.ResourceBundle;
+import java.util.Set;
+import java.util.TreeSet;
 
 /** The rules that ship with plumbline, their wording, and the project analyses they need. */
 public final class BuiltInRules {
@@ -19,9 +23,14 @@ public final class BuiltInRules {
 
   /** All built-in rules, sorted by id. New instances each call; rules are stateless. */
   public static List<Rule> all() {
-    return List.<Rule>of(
-            new PreprocessingBeforeSplitRule())
-        .stream()
+    List<Rule> rules = new ArrayList<>(List.<Rule>of(
+        new PreprocessingBeforeSplitRule()));
+    // ---- the suppression check knows every rule id, its own included
+    Set<String> ids = new TreeSet<>();
+    rules.forEach(r -> ids.add(r.descriptor().id()));
+    ids.add(InvalidSuppressionRule.ID);
+    rules.add(new InvalidSuppressionRule(ids));
+    return rules.stream()
         .sorted(Comparator.comparing(r -> r.descriptor().id()))
         .toList();
   }

@@ -12,7 +12,8 @@ import java.util.regex.Pattern;
 import java.util.stream.Stream;
 
 /**
- * Expectations written next to the code they describe, as trailing line comments:
+ * Expectations written next to the code they describe, as trailing comments ({@code //}, or
+ * {@code /* ... *}{@code /} where the line's line comment is itself under test):
  * <ul>
  *   <li>{@code // expect: rule.id} (several separated by commas): the rule must report on this line;
  *   <li>{@code // clean: rule.id}: a look-alike the rule must stay silent on (counted for coverage);
@@ -25,7 +26,7 @@ final class Expectations {
   record Mark(String uri, int line, String ruleId, Kind kind) {}
 
   private static final Pattern MARK =
-      Pattern.compile("//\\s*(expect|clean|expect-miss):\\s*([a-z]+\\.[a-z0-9-]+(?:\\s*,\\s*[a-z]+\\.[a-z0-9-]+)*)");
+      Pattern.compile("(?://|/\\*)\\s*(expect|clean|expect-miss):\\s*([a-z]+\\.[a-z0-9-]+(?:\\s*,\\s*[a-z]+\\.[a-z0-9-]+)*)");
 
   private Expectations() {}
 

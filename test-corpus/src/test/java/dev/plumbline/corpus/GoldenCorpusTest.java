@@ -117,7 +117,8 @@ class GoldenCorpusTest {
             + f.message().key() + f.message().arguments()
             + f.related().stream().map(r -> " | " + r.location().range().startLine() + ":"
                 + r.location().range().startColumn() + " " + r.message().key())
-                .collect(Collectors.joining()))
+                .collect(Collectors.joining())
+            + f.suppression().map(j -> " | suppressed: " + j).orElse(""))
         .collect(Collectors.joining("\n", "", "\n"));
     if (Boolean.getBoolean("plumbline.refreshGolden")) {
       Files.createDirectories(GOLDEN.getParent());

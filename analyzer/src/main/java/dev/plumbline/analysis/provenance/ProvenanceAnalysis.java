@@ -230,6 +230,10 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
           if (init == null && d.getInitializer().isPresent() && a.isDataType(a.types.typeOf(v))) {
             init = DataValue.fresh(a.lineageAt(d, d.getNameAsString()));
           }
+          if (sink != null && init != null && init.kind() == DataValue.Kind.DATA
+              && !init.roles().isEmpty() && !init.holds(Role.WHOLE)) {
+            sink.add(new ProvenanceFacts.PartBinding(a.graph, d, v, init));
+          }
           state = state.with(v, init);
         }
         return null;

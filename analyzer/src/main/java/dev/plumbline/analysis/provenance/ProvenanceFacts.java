@@ -1,9 +1,11 @@
 package dev.plumbline.analysis.provenance;
 
 import com.github.javaparser.ast.Node;
+import com.github.javaparser.ast.body.VariableDeclarator;
 import com.github.javaparser.ast.expr.Expression;
 import com.github.javaparser.ast.expr.MethodCallExpr;
 import dev.plumbline.flow.ControlFlowGraph;
+import dev.plumbline.types.Variable;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
@@ -25,6 +27,28 @@ public final class ProvenanceFacts {
   /** A statistic computed over data at {@code call} and used to rescale data at {@code use}. */
   public record StatisticUse(ControlFlowGraph graph, MethodCallExpr call, Expression over,
       DataValue data, Expression use) {}
+
+  // ---- part bindings (used by fixes that need the variable holding a split part)
+
+  /**
+   * A local variable declared with rows of split parts only (no whole rows), e.g.
+   * {@code DataSet train = split.getTrain();}. Recorded at the declaration, with the value the
+   * initializer has on every path that reaches it.
+   */
+  public record PartBinding(ControlFlowGraph graph, VariableDeclarator declarator,
+      Variable variable, DataValue value) {}
+
+  private final List<PartBinding> partBindings = new ArrayList<>();
+
+  void add(PartBinding b) {
+    partBindings.add(b);
+  }
+
+  public List<PartBinding> partBindings() {
+    return Collections.unmodifiableList(partBindings);
+  }
+
+  // ---- fits, splits and statistics
 
   private final List<Fit> fits = new ArrayList<>();
   private final List<Split> splits = new ArrayList<>();

@@ -50,6 +50,7 @@ public final class PreprocessingBeforeSplitRule implements Rule {
           .related(entry(fit.data(), split), "related.data-enters", Snippets.of(fit.argument()))
           .fix(ID + ".fix.fit-on-train", Snippets.of(fit.preprocessor()))
           .severity(certain ? Severity.ERROR : Severity.WARNING)
+          .edit(FitOnTrainingPart.plan(file, facts, fit, splits).orElse(null))
           .emit();
     }
     for (ProvenanceFacts.StatisticUse use : facts.statisticUses()) {
