@@ -5,6 +5,8 @@ import dev.plumbline.finding.Notification;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import dev.plumbline.parse.LineMap;
+import dev.plumbline.parse.NotebookLayout;
 
 /**
  * The outcome of a scan, sorted and ready to report.
@@ -15,7 +17,9 @@ import java.util.Optional;
  * @param filesDiscovered files chosen for scanning
  * @param filesAnalyzed files that parsed and were analyzed
  * @param linesAnalyzed source lines of the analyzed files
- * @param sources text of each file that has a finding, by report name, for excerpts
+ * @param sources text of each file that has a finding, by report name, for excerpts; for a
+ *     notebook, the code shown at each line of the notebook file (see {@link NotebookLayout})
+ * @param notebooks where the lines of each analyzed notebook came from, by report name
  */
 public record ScanResult(
     List<Finding> findings,
@@ -24,13 +28,29 @@ public record ScanResult(
     int filesDiscovered,
     int filesAnalyzed,
     long linesAnalyzed,
-    Map<String, String> sources) {
+    Map<String, String> sources,
+    Map<String, NotebookLayout> notebooks) {
 
   public ScanResult {
     findings = List.copyOf(findings);
     notifications = List.copyOf(notifications);
     rules = List.copyOf(rules);
     sources = Map.copyOf(sources);
+    notebooks = Map.copyOf(notebooks);
+  }
+
+  /** A result with no notebooks. */
+  public ScanResult(List<Finding> findings, List<Notification> notifications,
+      List<RuleDescriptor> rules, int filesDiscovered, int filesAnalyzed, long linesAnalyzed,
+      Map<String, String> sources) {
+    this(findings, notifications, rules, filesDiscovered, filesAnalyzed, linesAnalyzed, sources,
+        Map.of());
+  }
+
+  /** For a location in a notebook: the cell and the line within it. */
+  public Optional<LineMap.CellPosition> cellOf(dev.plumbline.finding.Location location) {
+    NotebookLayout layout = notebooks.get(location.uri());
+    return layout == null ? Optional.empty() : layout.cellOf(location.range().startLine());
   }
 
   /** Whether some input could not be analyzed (exit code 3). */
@@ -44,6 +64,6 @@ public record ScanResult(
 
   public ScanResult withFindings(List<Finding> replaced) {
     return new ScanResult(replaced, notifications, rules, filesDiscovered, filesAnalyzed,
-        linesAnalyzed, sources);
+        linesAnalyzed, sources, notebooks);
   }
 }

@@ -10,6 +10,7 @@ import dev.plumbline.finding.Notification;
 import dev.plumbline.finding.RelatedLocation;
 import dev.plumbline.finding.Severity;
 import dev.plumbline.model.ApiModel;
+import dev.plumbline.parse.NotebookLayout;
 import dev.plumbline.parse.ParsedSource;
 import dev.plumbline.parse.SourceParser;
 import dev.plumbline.types.ProjectIndex;
@@ -71,7 +72,7 @@ public final class Scanner {
 
   public ScanResult scan(ScanRequest request) {
     Discovery discovery = new Discovery(new Discovery.Options(request.baseDirectory(),
-        request.includes(), request.excludes(), false));
+        request.includes(), request.excludes(), true));
     Discovery.Result found = discovery.discover(request.paths());
     listener.discovered(found.files().size());
     List<Notification> notes = new ArrayList<>(found.notifications());
@@ -102,20 +103,26 @@ public final class Scanner {
       List<FileOutcome> perFile = parallel(pool, parsed, p -> checkFile(new FileContext(p, index, facts)));
       List<Finding> findings = new ArrayList<>();
       Map<String, String> sources = new TreeMap<>();
+      Map<String, NotebookLayout> notebooks = new TreeMap<>();
       long lines = 0;
       for (int i = 0; i < parsed.size(); i++) {
         FileOutcome fo = perFile.get(i);
+        ParsedSource source = parsed.get(i);
         findings.addAll(fo.findings());
         notes.addAll(fo.notifications());
-        if (!fo.findings().isEmpty()) {
-          sources.put(parsed.get(i).file().uri(), parsed.get(i).text());
+        if (source.lineMap() instanceof NotebookLayout layout) {
+          notebooks.put(source.file().uri(), layout);
         }
-        lines += parsed.get(i).text().lines().count();
+        if (!fo.findings().isEmpty()) {
+          sources.put(source.file().uri(), source.lineMap() instanceof NotebookLayout layout
+              ? layout.reportedText() : source.text());
+        }
+        lines += source.text().lines().count();
       }
       findings.sort(Finding.ORDER);
       notes.sort(Notification.ORDER);
       return new ScanResult(findings, notes, rules.stream().map(Rule::descriptor).toList(),
-          found.files().size(), parsed.size(), lines, sources);
+          found.files().size(), parsed.size(), lines, sources, notebooks);
     } finally {
       pool.shutdownNow();
     }
