@@ -40,7 +40,7 @@ class SarifSchemaTest {
 
   @Test
   void corpusSarifIsSchemaValid() throws Exception {
-    ScanResult result = CorpusScan.scan(2, CorpusScan.SOURCES, CorpusScan.DEMO);
+    ScanResult result = CorpusScan.scan(2, CorpusScan.SOURCES, CorpusScan.DEMO, CorpusScan.NOTEBOOKS);
     assertTrue(result.findings().size() > 0);
     Set<ValidationMessage> errors = validate(CorpusScan.sarif(result));
     assertTrue(errors.isEmpty(), () -> "schema violations: " + errors);
