@@ -1,5 +1,6 @@
 package dev.plumbline.engine;
 
+import dev.plumbline.analysis.entrypoints.TrainingEntryPoint;
 import dev.plumbline.finding.Finding;
 import dev.plumbline.finding.Notification;
 import java.util.List;
@@ -17,9 +18,12 @@ import dev.plumbline.parse.NotebookLayout;
  * @param filesDiscovered files chosen for scanning
  * @param filesAnalyzed files that parsed and were analyzed
  * @param linesAnalyzed source lines of the analyzed files
- * @param sources text of each file that has a finding, by report name, for excerpts; for a
+ * @param sources text of each file that has a finding (or, in an audit, an evaluation), by
+ *     report name, for excerpts; for a
  *     notebook, the code shown at each line of the notebook file (see {@link NotebookLayout})
  * @param notebooks where the lines of each analyzed notebook came from, by report name
+ * @param entryPoints training entry points and their evaluations, for the audit report; empty
+ *     unless the scan was asked for them ({@link Scanner#withAudit()})
  */
 public record ScanResult(
     List<Finding> findings,
@@ -29,7 +33,8 @@ public record ScanResult(
     int filesAnalyzed,
     long linesAnalyzed,
     Map<String, String> sources,
-    Map<String, NotebookLayout> notebooks) {
+    Map<String, NotebookLayout> notebooks,
+    List<TrainingEntryPoint> entryPoints) {
 
   public ScanResult {
     findings = List.copyOf(findings);
@@ -37,6 +42,7 @@ public record ScanResult(
     rules = List.copyOf(rules);
     sources = Map.copyOf(sources);
     notebooks = Map.copyOf(notebooks);
+    entryPoints = List.copyOf(entryPoints);
   }
 
   /** A result with no notebooks. */
@@ -44,7 +50,7 @@ public record ScanResult(
       List<RuleDescriptor> rules, int filesDiscovered, int filesAnalyzed, long linesAnalyzed,
       Map<String, String> sources) {
     this(findings, notifications, rules, filesDiscovered, filesAnalyzed, linesAnalyzed, sources,
-        Map.of());
+        Map.of(), List.of());
   }
 
   /** For a location in a notebook: the cell and the line within it. */
@@ -64,6 +70,6 @@ public record ScanResult(
 
   public ScanResult withFindings(List<Finding> replaced) {
     return new ScanResult(replaced, notifications, rules, filesDiscovered, filesAnalyzed,
-        linesAnalyzed, sources, notebooks);
+        linesAnalyzed, sources, notebooks, entryPoints);
   }
 }
