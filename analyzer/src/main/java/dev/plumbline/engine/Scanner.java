@@ -211,7 +211,7 @@ public final class Scanner {
           .toList();
       out.add(new Finding(r.rule().id(), r.severity().orElse(r.rule().defaultSeverity()),
           file.locationOf(r.node()), r.message(), related, r.fixHint(), r.fix(),
-          fingerprints.next(r.rule().id(), file.uri(), r.node()), Optional.empty()));
+          fingerprints.next(r.rule().id(), file.uri(), r.node()), Optional.empty(), r.involved()));
     }
     return out;
   }

@@ -175,6 +175,9 @@ public final class SarifReport {
     props.setAdditionalProperty("messageKey", f.message().key());
     props.setAdditionalProperty("arguments", f.message().arguments());
     props.setAdditionalProperty("fixHint", m.render(f.fixHint()));
+    if (!f.involved().isEmpty()) {
+      props.setAdditionalProperty("involved", f.involved().stream().map(m::render).toList());
+    }
     Result result = new Result()
         .withRuleId(f.ruleId())
         .withLevel(Result.Level.fromValue(f.severity().sarifLevel()))

@@ -7,6 +7,7 @@ import dev.plumbline.engine.Scanner;
 import dev.plumbline.finding.Finding;
 import dev.plumbline.finding.Severity;
 import dev.plumbline.model.ApiModel;
+import dev.plumbline.report.HtmlReport;
 import dev.plumbline.report.ReportContext;
 import dev.plumbline.report.SarifReport;
 import dev.plumbline.report.TextReport;
@@ -31,7 +32,7 @@ import picocli.CommandLine.Parameters;
     description = "Scan Java sources for defects in training code.")
 final class ScanCommand implements Callable<Integer> {
 
-  enum Format { text, sarif }
+  enum Format { text, sarif, html }
 
   enum FailLevel {
     error(Severity.ERROR), warning(Severity.WARNING), note(Severity.NOTE), none(null);
@@ -79,10 +80,17 @@ final class ScanCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     Options options = validate();
-    Scanner scanner = new Scanner(ApiModel.loadDefault(), BuiltInRules.all(),
-        BuiltInRules.projectAnalyses(), Scanner.ScanListener.NONE);
-    ScanResult result = scanner.scan(new ScanRequest(options.paths(), env.workingDirectory(),
-        options.includes(), options.excludes(), options.jobs()));
+    ScanResult result;
+    try (ScanProgress progress = new ScanProgress(env.errIsTerminal(), env.rawErr(), env.err(),
+        () -> System.nanoTime() / 1_000_000)) {
+      Scanner scanner = new Scanner(ApiModel.loadDefault(), BuiltInRules.all(),
+          BuiltInRules.projectAnalyses(), progress);
+      if (options.format() == Format.html) {
+        scanner = scanner.withAudit(); // training entry points and test-set sizes for the verdicts
+      }
+      result = scanner.scan(new ScanRequest(options.paths(), env.workingDirectory(),
+          options.includes(), options.excludes(), options.jobs()));
+    }
     MessageCatalog messages = BuiltInRules.messages();
     ReportContext ctx = new ReportContext(result, messages, env.workingDirectory(), PlumblineCommand.version());
     String report = render(ctx, options.format());
@@ -134,6 +142,7 @@ final class ScanCommand implements Callable<Integer> {
   static String render(ReportContext ctx, Format format) {
     return switch (format) {
       case sarif -> SarifReport.render(ctx);
+      case html -> HtmlReport.render(ctx);
       case text -> {
         StringWriter sw = new StringWriter();
         TextReport.write(ctx, new PrintWriter(sw));

@@ -23,4 +23,10 @@ public final class Snippets {
     LineMap lines = LineMap.of(node);
     return node.getBegin().map(p -> String.valueOf(lines.reportedLine(p.line))).orElse("?");
   }
+
+  /** Data roles as report words, in the enum's order: {@code whole, test}. */
+  public static String roles(java.util.Set<dev.plumbline.analysis.provenance.Role> roles) {
+    return roles.stream().sorted().map(r -> r.name().toLowerCase(java.util.Locale.ROOT).replace('_', '-'))
+        .collect(java.util.stream.Collectors.joining(", "));
+  }
 }
