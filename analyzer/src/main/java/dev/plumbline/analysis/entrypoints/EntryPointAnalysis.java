@@ -10,6 +10,7 @@ import dev.plumbline.analysis.provenance.DataValue;
 import dev.plumbline.analysis.provenance.Lineage;
 import dev.plumbline.analysis.provenance.ProvenanceAnalysis;
 import dev.plumbline.analysis.provenance.ProvenanceFacts;
+import dev.plumbline.analysis.provenance.Role;
 import dev.plumbline.analysis.rowcount.RowCountAnalysis;
 import dev.plumbline.analysis.rowcount.RowCountFacts;
 import dev.plumbline.engine.FileContext;
@@ -95,11 +96,16 @@ public final class EntryPointAnalysis {
     List<String> roles = new ArrayList<>();
     Set<Location> sources = new TreeSet<>();
     if (use != null && use.data().kind() == DataValue.Kind.DATA) {
-      use.data().roles().forEach(r -> roles.add(r.name()));
+      List<ProvenanceFacts.Split> splits = provenance.splitsOf(use.graph(), use.data().lineages());
+      // Data entering a method starts out as "whole"; that says something only if the method
+      // splits it. Otherwise which rows it holds is unknown here.
+      use.data().roles().stream()
+          .filter(r -> r != Role.WHOLE || !splits.isEmpty())
+          .forEach(r -> roles.add(r.name()));
       for (Lineage l : use.data().lineages()) {
         sources.add(file.locationOf(l.site()));
       }
-      for (ProvenanceFacts.Split s : provenance.splitsOf(use.graph(), use.data().lineages())) {
+      for (ProvenanceFacts.Split s : splits) {
         sources.add(file.locationOf(s.call()));
       }
     }
