@@ -52,7 +52,7 @@ class SplitSizesTest {
     for (int rows : ROWS) {
       for (int n : COUNTS) {
         if (n == 0) {
-          continue; // the library accepts 0 for some row counts and returns an empty part we do not model
+          continue; // the analysis gives no size for 0, whatever the library does with it
         }
         check(rows, SplitSizes.byTrainCount(rows, n), d -> d.splitTestAndTrain(n),
             rows + " rows split at " + n);
