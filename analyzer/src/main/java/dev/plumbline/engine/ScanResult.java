@@ -18,8 +18,7 @@ import dev.plumbline.parse.NotebookLayout;
  * @param filesDiscovered files chosen for scanning
  * @param filesAnalyzed files that parsed and were analyzed
  * @param linesAnalyzed source lines of the analyzed files
- * @param sources text of each file that has a finding (or, in an audit, an evaluation), by
- *     report name, for excerpts; for a
+ * @param sources text of each file that has a finding, by report name, for excerpts; for a
  *     notebook, the code shown at each line of the notebook file (see {@link NotebookLayout})
  * @param notebooks where the lines of each analyzed notebook came from, by report name
  * @param entryPoints training entry points and their evaluations, for the audit report; empty

@@ -139,8 +139,7 @@ public final class Scanner {
         if (source.lineMap() instanceof NotebookLayout layout) {
           notebooks.put(source.file().uri(), layout);
         }
-        boolean evaluates = fo.callables().stream().anyMatch(c -> !c.evaluations().isEmpty());
-        if (!fo.findings().isEmpty() || evaluates) {
+        if (!fo.findings().isEmpty()) {
           sources.put(source.file().uri(), source.lineMap() instanceof NotebookLayout layout
               ? layout.reportedText() : source.text());
         }
