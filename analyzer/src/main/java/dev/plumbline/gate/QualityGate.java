@@ -29,6 +29,7 @@ public final class QualityGate {
   private final List<Rule> allRules;
   private final List<ProjectAnalysis> projectAnalyses;
   private final Scanner.ScanListener listener;
+  private final boolean audit;
 
   /**
    * What to scan and how.
@@ -83,10 +84,21 @@ public final class QualityGate {
 
   public QualityGate(ApiModel model, List<Rule> allRules, List<ProjectAnalysis> projectAnalyses,
       Scanner.ScanListener listener) {
+    this(model, allRules, projectAnalyses, listener, false);
+  }
+
+  private QualityGate(ApiModel model, List<Rule> allRules, List<ProjectAnalysis> projectAnalyses,
+      Scanner.ScanListener listener, boolean audit) {
     this.model = model;
     this.allRules = List.copyOf(allRules);
     this.projectAnalyses = List.copyOf(projectAnalyses);
     this.listener = listener;
+    this.audit = audit;
+  }
+
+  /** The same gate, also collecting training entry points and test-set sizes (audit report). */
+  public QualityGate withAudit() {
+    return new QualityGate(model, allRules, projectAnalyses, listener, true);
   }
 
   public Set<String> ruleIds() {
@@ -109,6 +121,9 @@ public final class QualityGate {
     ScanRequest request = new ScanRequest(options.paths(), options.baseDirectory(), includes,
         new ArrayList<>(excludes), options.jobs(), config.analysisSettings());
     Scanner scanner = new Scanner(model, config.enabledRules(allRules), projectAnalyses, listener);
+    if (audit) {
+      scanner = scanner.withAudit();
+    }
     ScanResult result = scanner.scan(request);
     result = SeverityOverrides.apply(result, config);
     result = Suppressions.apply(result);

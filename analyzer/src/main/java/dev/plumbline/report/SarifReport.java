@@ -29,6 +29,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.RuleDescriptor;
+import dev.plumbline.engine.ScanResult;
 import dev.plumbline.finding.Edit;
 import dev.plumbline.finding.Finding;
 import dev.plumbline.finding.Notification;
@@ -87,7 +88,7 @@ public final class SarifReport {
       if (results.size() >= MAX_RESULTS) {
         break;
       }
-      Result r = result(f, ruleIndex.getOrDefault(f.ruleId(), -1), messages);
+      Result r = result(f, ruleIndex.getOrDefault(f.ruleId(), -1), messages, ctx.result());
       if (ctx.baseline().isPresent()) {
         // Known findings were removed; everything left is new relative to the baseline.
         r.withBaselineState(Result.BaselineState.NEW);
@@ -183,11 +184,11 @@ public final class SarifReport {
     return sb.toString();
   }
 
-  private static Result result(Finding f, int index, MessageCatalog m) {
+  private static Result result(Finding f, int index, MessageCatalog m, ScanResult scan) {
     Set<Location> related = new LinkedHashSet<>();
     int id = 1;
     for (RelatedLocation r : f.related()) {
-      related.add(location(r.location()).withId(id++).withMessage(text(m.render(r.message()))));
+      related.add(location(r.location(), scan).withId(id++).withMessage(text(m.render(r.message()))));
     }
     PartialFingerprints fp = new PartialFingerprints();
     fp.setAdditionalProperty(FINGERPRINT_KEY, f.fingerprint());
@@ -195,11 +196,14 @@ public final class SarifReport {
     props.setAdditionalProperty("messageKey", f.message().key());
     props.setAdditionalProperty("arguments", f.message().arguments());
     props.setAdditionalProperty("fixHint", m.render(f.fixHint()));
+    if (!f.involved().isEmpty()) {
+      props.setAdditionalProperty("involved", f.involved().stream().map(m::render).toList());
+    }
     Result result = new Result()
         .withRuleId(f.ruleId())
         .withLevel(Result.Level.fromValue(f.severity().sarifLevel()))
         .withMessage(text(m.render(f.message())))
-        .withLocations(List.of(location(f.location())))
+        .withLocations(List.of(location(f.location(), scan)))
         .withRelatedLocations(related)
         .withPartialFingerprints(fp)
         .withProperties(props);
@@ -248,6 +252,22 @@ public final class SarifReport {
     return new Location().withPhysicalLocation(new PhysicalLocation()
         .withArtifactLocation(artifact(l.uri()))
         .withRegion(region(l.range())));
+  }
+
+  /**
+   * A location; in a notebook, the region's lines are lines of the notebook file and its
+   * columns count within the code line, and the properties {@code notebookCell} and
+   * {@code notebookCellLine} say which cell and which line of it.
+   */
+  private static Location location(dev.plumbline.finding.Location l, ScanResult scan) {
+    Location out = location(l);
+    scan.cellOf(l).ifPresent(cell -> {
+      PropertyBag props = new PropertyBag();
+      props.setAdditionalProperty("notebookCell", cell.cell());
+      props.setAdditionalProperty("notebookCellLine", cell.line());
+      out.withProperties(props);
+    });
+    return out;
   }
 
   private static ArtifactLocation artifact(String uri) {

@@ -32,9 +32,22 @@ public final class TypeResolver {
   private final Map<String, String> singleImports = new HashMap<>();
   private final List<String> onDemandPackages = new ArrayList<>();
   private final Map<String, String> localTypes = new HashMap<>();
+  private final Set<String> projectTypes;
 
   public TypeResolver(CompilationUnit unit, ApiModel model) {
+    this(unit, model, Set.of());
+  }
+
+  /**
+   * A resolver that also knows the project's own types, so that a type of the same package
+   * declared in another file, or one from a package imported on demand, resolves (JLS 6.4.1:
+   * single-type imports, then types of this file, then of the package, then on-demand imports).
+   *
+   * @param projectTypes qualified names of every type the project declares
+   */
+  public TypeResolver(CompilationUnit unit, ApiModel model, Set<String> projectTypes) {
     this.model = model;
+    this.projectTypes = projectTypes;
     this.packageName = unit.getPackageDeclaration().map(p -> p.getNameAsString()).orElse("");
     for (ImportDeclaration imp : unit.getImports()) {
       if (imp.isStatic()) {
@@ -97,6 +110,22 @@ public final class TypeResolver {
     String local = localTypes.get(simple);
     if (local != null) {
       return local;
+    }
+    String samePackage = packageName.isEmpty() ? simple : packageName + "." + simple;
+    if (projectTypes.contains(samePackage)) {
+      return samePackage;
+    }
+    String onDemand = null;
+    for (String pkg : onDemandPackages) {
+      if (projectTypes.contains(pkg + "." + simple)) {
+        if (onDemand != null) {
+          return null; // ambiguous between two imported packages
+        }
+        onDemand = pkg + "." + simple;
+      }
+    }
+    if (onDemand != null) {
+      return onDemand;
     }
     String found = null;
     for (ApiType t : model.typesWithSimpleName(simple)) {

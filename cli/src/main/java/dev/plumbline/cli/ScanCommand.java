@@ -5,6 +5,7 @@ import dev.plumbline.gate.ConfigException;
 import dev.plumbline.gate.FailLevel;
 import dev.plumbline.gate.QualityGate;
 import dev.plumbline.model.ApiModel;
+import dev.plumbline.report.HtmlReport;
 import dev.plumbline.report.ReportContext;
 import dev.plumbline.report.SarifReport;
 import dev.plumbline.report.TextReport;
@@ -27,7 +28,7 @@ import picocli.CommandLine.Option;
     description = "Scan Java sources for defects in training code.")
 final class ScanCommand implements Callable<Integer> {
 
-  enum Format { text, sarif }
+  enum Format { text, sarif, html }
 
   /** The fail levels as the command line spells them. */
   enum FailOn {
@@ -70,7 +71,12 @@ final class ScanCommand implements Callable<Integer> {
     QualityGate.Options options = gate.validate(env.workingDirectory(), Optional.ofNullable(baseline),
         Optional.ofNullable(failOn).map(f -> f.level));
     Optional<Path> out = outputPath(env.workingDirectory(), output);
-    QualityGate.Outcome outcome = run(options);
+    QualityGate.Outcome outcome;
+    try (ScanProgress progress = new ScanProgress(env.errIsTerminal(), env.rawErr(), env.err(),
+        () -> System.nanoTime() / 1_000_000)) {
+      // The HTML report needs training entry points and test-set sizes for its verdicts.
+      outcome = run(options, progress, format == Format.html);
+    }
     ReportContext ctx = new ReportContext(outcome.result(), BuiltInRules.messages(),
         env.workingDirectory(), PlumblineCommand.version(), outcome.baseline());
     String report = render(ctx, format);
@@ -88,8 +94,16 @@ final class ScanCommand implements Callable<Integer> {
 
   /** Runs the gate with the built-in rules; a bad configuration or baseline is a usage error. */
   static QualityGate.Outcome run(QualityGate.Options options) {
+    return run(options, Scanner.ScanListener.NONE, false);
+  }
+
+  static QualityGate.Outcome run(QualityGate.Options options, Scanner.ScanListener listener,
+      boolean audit) {
     QualityGate gate = new QualityGate(ApiModel.loadDefault(), BuiltInRules.all(),
-        BuiltInRules.projectAnalyses(), Scanner.ScanListener.NONE);
+        BuiltInRules.projectAnalyses(), listener);
+    if (audit) {
+      gate = gate.withAudit();
+    }
     try {
       return gate.run(options);
     } catch (ConfigException e) {
@@ -108,6 +122,7 @@ final class ScanCommand implements Callable<Integer> {
   static String render(ReportContext ctx, Format format) {
     return switch (format) {
       case sarif -> SarifReport.render(ctx);
+      case html -> HtmlReport.render(ctx);
       case text -> {
         StringWriter sw = new StringWriter();
         TextReport.write(ctx, new PrintWriter(sw));

@@ -16,6 +16,8 @@ final class CorpusScan {
   static final Path MODULE = Path.of("").toAbsolutePath();
   static final Path SOURCES = MODULE.resolve("src/main/java");
   static final Path DEMO = MODULE.resolve("demo-project/src/main/java");
+  /** Java notebooks: their code is checked by compiling the unit the analyzer builds from them. */
+  static final Path NOTEBOOKS = MODULE.resolve("notebooks");
 
   private CorpusScan() {}
 

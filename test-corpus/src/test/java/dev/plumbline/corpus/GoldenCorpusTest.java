@@ -42,9 +42,10 @@ class GoldenCorpusTest {
 
   @BeforeAll
   static void scan() {
-    result = CorpusScan.scan(2, CorpusScan.SOURCES, CorpusScan.DEMO);
+    result = CorpusScan.scan(2, CorpusScan.SOURCES, CorpusScan.DEMO, CorpusScan.NOTEBOOKS);
     marks = new ArrayList<>(Expectations.read(CorpusScan.MODULE, CorpusScan.SOURCES));
     marks.addAll(Expectations.read(CorpusScan.MODULE, CorpusScan.DEMO));
+    marks.addAll(Expectations.read(CorpusScan.MODULE, CorpusScan.NOTEBOOKS));
   }
 
   @Test

@@ -399,6 +399,13 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
           recordStatisticUse(receiver, call);
           return receiver != null && receiver.kind() == DataValue.Kind.DATA ? receiver : null;
         }
+        case TRAIN, EVALUATE, PREDICT -> {
+          int dataArg = m.intAttribute("dataArg", 0);
+          if (sink != null && dataArg < args.size() && args.get(dataArg) != null) {
+            sink.add(new ProvenanceFacts.Use(a.graph, call, m, call.getArgument(dataArg), args.get(dataArg)));
+          }
+          return unknownResult(call);
+        }
         default -> {
           return unknownResult(call);
         }

@@ -49,8 +49,15 @@ public final class ProvenanceFacts {
   }
 
   // ---- fits, splits and statistics
+  /**
+   * Data given to a model: trained on, evaluated on or predicted from ({@code method.effect()}
+   * says which), with the rows the argument may hold.
+   */
+  public record Use(ControlFlowGraph graph, MethodCallExpr call, dev.plumbline.model.ApiMethod method,
+      Expression argument, DataValue data) {}
 
   private final List<Fit> fits = new ArrayList<>();
+  private final List<Use> uses = new ArrayList<>();
   private final List<Split> splits = new ArrayList<>();
   private final List<StatisticUse> statisticUses = new ArrayList<>();
 
@@ -60,6 +67,15 @@ public final class ProvenanceFacts {
 
   void add(Split s) {
     splits.add(s);
+  }
+
+  void add(Use u) {
+    uses.add(u);
+  }
+
+  /** Training, evaluation and prediction calls whose data argument has a known provenance. */
+  public List<Use> uses() {
+    return Collections.unmodifiableList(uses);
   }
 
   void add(StatisticUse s) {

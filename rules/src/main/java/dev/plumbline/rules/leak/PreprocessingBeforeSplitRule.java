@@ -49,6 +49,7 @@ public final class PreprocessingBeforeSplitRule implements Rule {
           .related(split.call(), "related.split-here", Snippets.of(split.splitData()))
           .related(entry(fit.data(), split), "related.data-enters", Snippets.of(fit.argument()))
           .fix(ID + ".fix.fit-on-train", Snippets.of(fit.preprocessor()))
+          .involves("involved.data-role", Snippets.of(fit.argument()), Snippets.roles(fit.data().roles()))
           .severity(certain ? Severity.ERROR : Severity.WARNING)
           .edit(FitOnTrainingPart.plan(file, facts, fit, splits).orElse(null))
           .emit();
@@ -71,6 +72,7 @@ public final class PreprocessingBeforeSplitRule implements Rule {
           .related(split.call(), "related.split-here", Snippets.of(split.splitData()))
           .related(use.use(), "related.statistic-used", use.call().getNameAsString())
           .fix(ID + ".fix.statistic-on-train", use.call().getNameAsString())
+          .involves("involved.data-role", Snippets.of(use.over()), Snippets.roles(over.roles()))
           .severity(certain ? Severity.ERROR : Severity.WARNING)
           .emit();
     }
