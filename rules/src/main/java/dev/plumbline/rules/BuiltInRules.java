@@ -1,5 +1,6 @@
 package dev.plumbline.rules;
 
+import dev.plumbline.analysis.provenance.ProvenanceSummarizer;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.Rule;
@@ -32,7 +33,9 @@ public final class BuiltInRules {
 
   /** Project-wide analyses (method summaries) that the rules' analyses consult. */
   public static List<ProjectAnalysis> projectAnalyses() {
-    return List.of();
+    return List.of(
+        // ---- provenance (issue 3)
+        new ProvenanceSummarizer());
   }
 
   public static MessageCatalog messages() {

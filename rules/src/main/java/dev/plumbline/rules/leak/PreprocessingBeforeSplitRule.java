@@ -44,11 +44,11 @@ public final class PreprocessingBeforeSplitRule implements Rule {
       ProvenanceFacts.Split split = splits.get(0);
       boolean certain = fit.data().onlyWhole();
       reporter.at(this, fit.call())
-          .message(certain ? ID : ID + ".possible", Snippets.of(fit.preprocessor()),
+          .message(certain ? ID : ID + ".possible", fit.preprocessorName(),
               Snippets.of(fit.argument()), Snippets.of(split.splitData()), Snippets.line(split.call()))
           .related(split.call(), "related.split-here", Snippets.of(split.splitData()))
           .related(entry(fit.data(), split), "related.data-enters", Snippets.of(fit.argument()))
-          .fix(ID + ".fix.fit-on-train", Snippets.of(fit.preprocessor()))
+          .fix(ID + ".fix.fit-on-train", fit.preprocessorName())
           .severity(certain ? Severity.ERROR : Severity.WARNING)
           .emit();
     }
