@@ -1,10 +1,16 @@
 package dev.plumbline.rules;
 
+import dev.plumbline.analysis.loops.ConfigurationReach;
 import dev.plumbline.analysis.provenance.ProvenanceSummarizer;
+import dev.plumbline.analysis.randomness.ProjectSeeding;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.Rule;
+import dev.plumbline.rules.leak.FitOnTestRule;
 import dev.plumbline.rules.leak.PreprocessingBeforeSplitRule;
+import dev.plumbline.rules.leak.TemporalShuffleRule;
+import dev.plumbline.rules.leak.TestInTuningRule;
+import dev.plumbline.rules.repro.UnseededRandomnessRule;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
@@ -21,7 +27,12 @@ public final class BuiltInRules {
   /** All built-in rules, sorted by id. New instances each call; rules are stateless. */
   public static List<Rule> all() {
     return List.<Rule>of(
-            new PreprocessingBeforeSplitRule())
+            new PreprocessingBeforeSplitRule(),
+            // ---- provenance and loop roles (issue 3)
+            new FitOnTestRule(),
+            new TestInTuningRule(),
+            new TemporalShuffleRule(),
+            new UnseededRandomnessRule())
         .stream()
         .sorted(Comparator.comparing(r -> r.descriptor().id()))
         .toList();
@@ -35,7 +46,9 @@ public final class BuiltInRules {
   public static List<ProjectAnalysis> projectAnalyses() {
     return List.of(
         // ---- provenance (issue 3)
-        new ProvenanceSummarizer());
+        new ProvenanceSummarizer(),
+        new ConfigurationReach(),
+        new ProjectSeeding());
   }
 
   public static MessageCatalog messages() {
