@@ -37,7 +37,7 @@ public final class FileContext {
     this.source = source;
     this.project = project;
     this.projectFacts = projectFacts;
-    TypeResolver resolver = new TypeResolver(source.unit(), project.model());
+    TypeResolver resolver = new TypeResolver(source.unit(), project.model(), project::hasType);
     this.types = new ExpressionTypes(new SymbolTable(source.unit(), resolver), project);
   }
 

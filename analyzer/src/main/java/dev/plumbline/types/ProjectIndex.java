@@ -115,6 +115,11 @@ public final class ProjectIndex {
     return model;
   }
 
+  /** Whether the project declares a type of this qualified name. */
+  public boolean hasType(String name) {
+    return types.containsKey(name);
+  }
+
   public Optional<ProjectType> type(String name) {
     return Optional.ofNullable(types.get(name));
   }

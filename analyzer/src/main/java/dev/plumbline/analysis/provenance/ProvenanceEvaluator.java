@@ -285,7 +285,10 @@ final class ProvenanceEvaluator {
         return DataValue.data(EnumSet.of(Role.ARGUMENT), Set.of(lineage));
       }
       if (a.isDataType(type)) {
-        return DataValue.fresh(lineage);
+        DataValue fresh = DataValue.fresh(lineage);
+        // Only time order is read from a parameter's name: which rows a caller passes is the
+        // caller's business, but a parameter called hourlyReadings is time-ordered whatever it is.
+        return DataNames.saysTimeOrdered(List.of(v.name())) ? fresh.withTimeOrder(v.declaration()) : fresh;
       }
     }
     return null;
@@ -334,13 +337,38 @@ final class ProvenanceEvaluator {
     Node origin = array.sites().stream().min(DataValue.BY_POSITION).orElse(access);
     Expression index = access.getIndex();
     if (!index.isIntegerLiteralExpr()) {
-      return new DataValue(DataValue.Kind.DATA, EnumSet.copyOf(byIndex), Set.of(), array.lineages(),
+      EnumSet<Role> any = EnumSet.noneOf(Role.class);
+      byIndex.forEach(r -> any.add(heldOutOfTraining(array, r)));
+      return new DataValue(DataValue.Kind.DATA, any, Set.of(), array.lineages(),
           Set.of(), 0, Set.of(origin), array.timeOrdered());
     }
     int i = index.asIntegerLiteralExpr().asNumber().intValue();
-    Role role = i >= 0 && i < byIndex.size() ? byIndex.get(i) : Role.HELD_OUT;
+    Role role = heldOutOfTraining(array, i >= 0 && i < byIndex.size() ? byIndex.get(i) : Role.HELD_OUT);
     return new DataValue(DataValue.Kind.DATA, EnumSet.of(role), Set.of(), array.lineages(), Set.of(),
         0, Set.of(origin), array.timeOrdered());
+  }
+
+  /**
+   * Rows held out of a split of training rows are validation rows, whatever the split method
+   * calls its parts ({@code split.getTrain().splitTestAndTrain(0.9).getTest()} is the usual way
+   * to carve a validation set out of the training part).
+   */
+  private static Role heldOutOfTraining(DataValue split, Role part) {
+    boolean ofTraining = split.roles().equals(EnumSet.of(Role.TRAIN));
+    return ofTraining && (part == Role.TEST || part == Role.HELD_OUT) ? Role.VALIDATION : part;
+  }
+
+  /** Whether a split draws its rows at random: always, or when given a shuffling argument. */
+  private boolean drawsAtRandom(MethodCallExpr call, ApiMethod m) {
+    if (m.flag("random")) {
+      return true;
+    }
+    if (m.attribute("randomWhenArg") != null) {
+      int i = m.intAttribute("randomWhenArg", 0);
+      String type = i < call.getArguments().size() ? a.types.typeOf(call.getArgument(i)) : null;
+      return type != null && a.file.model().typeAttribute(type, "shuffles").isPresent();
+    }
+    return false;
   }
 
   /**
@@ -434,14 +462,14 @@ final class ProvenanceEvaluator {
         if (receiver == null) {
           return null;
         }
-        recordSplit(call, call.getScope().orElse(call), receiver, m.flag("random"), null);
+        recordSplit(call, call.getScope().orElse(call), receiver, drawsAtRandom(call, m), null);
         return receiver.withKind(DataValue.Kind.SPLIT_HOLDER, Set.of(call), 0);
       }
       case SPLIT_ARRAY -> {
         if (receiver == null) {
           return null;
         }
-        recordSplit(call, call.getScope().orElse(call), receiver, m.flag("random"), null);
+        recordSplit(call, call.getScope().orElse(call), receiver, drawsAtRandom(call, m), null);
         int parts = m.isVarArgs() ? call.getArguments().size() - (m.params().size() - 1) : 0;
         return receiver.withKind(DataValue.Kind.PARTS, Set.of(call), parts > 1 ? parts : 0);
       }
@@ -449,7 +477,7 @@ final class ProvenanceEvaluator {
         if (receiver == null || receiver.kind() != DataValue.Kind.SPLIT_HOLDER) {
           return null;
         }
-        Role role = Role.valueOf(m.attribute("part").toUpperCase(Locale.ROOT));
+        Role role = heldOutOfTraining(receiver, Role.valueOf(m.attribute("part").toUpperCase(Locale.ROOT)));
         Node origin = receiver.sites().stream().min(DataValue.BY_POSITION).orElse(call);
         return new DataValue(DataValue.Kind.DATA, EnumSet.of(role), Set.of(), receiver.lineages(),
             Set.of(), 0, Set.of(origin), receiver.timeOrdered());

@@ -60,6 +60,9 @@ public final class RandomnessAnalysis {
     ProjectSeeding.SeededScopes seeded = file.projectFacts() == null ? null
         : file.projectFacts().get(ProjectSeeding.SeededScopes.class);
     for (ProvenanceFacts.Shuffle s : provenance.shuffles()) {
+      if (s.via() != null) {
+        continue; // reported where the helper itself shuffles
+      }
       String subject = s.target().toString();
       if (s.seeding() == ProvenanceFacts.Seeding.CLOCK) {
         facts.add(new RandomnessFacts.Draw(s.call(), RandomnessFacts.Kind.CLOCK_SHUFFLE, s.call(),
