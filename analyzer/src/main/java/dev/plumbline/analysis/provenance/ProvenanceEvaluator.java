@@ -493,8 +493,19 @@ final class ProvenanceEvaluator {
         DataValue added = dataArg < args.size() ? args.get(dataArg) : null;
         Optional<Variable> target = call.getScope().flatMap(this::targetOf);
         if (target.isPresent() && added != null && added.kind() == DataValue.Kind.DATA) {
-          DataValue old = m.effect() == Effect.ADD_ROWS ? state.get(target.get()).orElse(null) : null;
-          write(target.get(), old == null ? added : old.join(added), call);
+          DataValue old = state.get(target.get()).orElse(null);
+          DataValue now;
+          if (m.effect() == Effect.ADD_ROWS) {
+            now = old == null ? added : old.join(added);
+          } else {
+            // A reader takes its rows from the split, but a sequence reader still reads them in
+            // time order: keep the reader's own time-order evidence.
+            now = added;
+            if (old != null && old.isTimeOrdered() && !added.isTimeOrdered()) {
+              now = added.withTimeOrder(old.firstTimeOrderEvidence().get());
+            }
+          }
+          write(target.get(), now, call);
         }
         return null;
       }

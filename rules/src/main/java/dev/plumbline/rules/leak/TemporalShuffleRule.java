@@ -4,6 +4,7 @@ import com.github.javaparser.ast.Node;
 import dev.plumbline.analysis.provenance.DataValue;
 import dev.plumbline.analysis.provenance.ProvenanceAnalysis;
 import dev.plumbline.analysis.provenance.ProvenanceFacts;
+import dev.plumbline.analysis.provenance.Role;
 import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.FindingReporter;
 import dev.plumbline.engine.Rule;
@@ -34,14 +35,19 @@ public final class TemporalShuffleRule implements Rule {
     ProvenanceFacts facts = file.analysis(ProvenanceAnalysis.KEY);
     for (ProvenanceFacts.Shuffle shuffle : facts.shuffles()) {
       DataValue data = shuffle.data();
-      if (!data.isTimeOrdered()) {
+      if (!data.isTimeOrdered() || !data.holds(Role.WHOLE)) {
+        continue; // shuffling a part after the split (the training rows) keeps the test rows last
+      }
+      ProvenanceFacts.Split split = null;
+      for (ProvenanceFacts.Split s : facts.splitsOf(shuffle.graph(), data.lineages())) {
+        if (s.graph() != shuffle.graph() || DataValue.BY_POSITION.compare(s.call(), shuffle.call()) > 0) {
+          split = s;
+          break;
+        }
+      }
+      if (split == null) {
         continue;
       }
-      List<ProvenanceFacts.Split> splits = facts.splitsOf(shuffle.graph(), data.lineages());
-      if (splits.isEmpty()) {
-        continue;
-      }
-      ProvenanceFacts.Split split = splits.get(0);
       Node evidence = Evidence.origin(file, timeOrigin(data), shuffle.target());
       reporter.at(this, shuffle.call())
           .message(ID, Snippets.of(shuffle.target()), Snippets.of(evidence), Snippets.line(evidence),
