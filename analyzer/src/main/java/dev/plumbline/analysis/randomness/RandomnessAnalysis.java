@@ -100,8 +100,10 @@ public final class RandomnessAnalysis {
         int i = m.get().intAttribute("shuffleArg", 0);
         if (i < call.getArguments().size() && call.getArgument(i) instanceof BooleanLiteralExpr b
             && b.getValue()) {
-          facts.add(new RandomnessFacts.Draw(call, RandomnessFacts.Kind.UNSEEDED_FRAMEWORK_GENERATOR,
-              call, call.getScope().map(Node::toString).orElse(call.getNameAsString()), null));
+          // Located at the method name: in a builder chain the call itself starts lines earlier.
+          facts.add(new RandomnessFacts.Draw(call.getName(), RandomnessFacts.Kind.UNSEEDED_FRAMEWORK_GENERATOR,
+              call.getName(), call.getNameAsString() + "(" + String.join(", ",
+                  call.getArguments().stream().map(Node::toString).toList()) + ")", null));
         }
       }
     }
