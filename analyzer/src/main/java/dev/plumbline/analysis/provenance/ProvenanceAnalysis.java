@@ -180,7 +180,7 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
   }
 
   static String shortText(Node n) {
-    String s = n.toString().replaceAll("\\s+", " ");
+    String s = dev.plumbline.flow.AstText.code(n);
     return s.length() <= 40 ? s : s.substring(0, 37) + "...";
   }
 

@@ -693,6 +693,7 @@ final class ProvenanceEvaluator {
     guessed.addAll(r.guessed());
     Set<Lineage> lineages = new HashSet<>();
     Set<Node> timeOrdered = DataValue.identitySet(List.of());
+    Set<Node> origins = DataValue.identitySet(List.of());
     boolean changedRoles = !roles.isEmpty();
     for (int i : r.fromParams()) {
       DataValue v = i < args.size() ? args.get(i) : null;
@@ -702,6 +703,7 @@ final class ProvenanceEvaluator {
       lineages.addAll(v.lineages());
       timeOrdered.addAll(v.timeOrdered());
       if (r.roles().contains(Role.ARGUMENT)) {
+        origins.addAll(v.origins());
         for (Role role : v.roles()) {
           if (roles.add(role) && v.guessed().contains(role)) {
             guessed.add(role);
@@ -723,8 +725,11 @@ final class ProvenanceEvaluator {
     if (roles.isEmpty() || lineages.isEmpty()) {
       return unknownResult(call, null);
     }
-    return new DataValue(r.kind(), roles, guessed, lineages, Set.of(call), r.parts(),
-        changedRoles ? Set.of(call) : Set.of(), timeOrdered);
+    if (changedRoles) {
+      origins.add(call);
+    }
+    return new DataValue(r.kind(), roles, guessed, lineages, Set.of(call), r.parts(), origins,
+        timeOrdered);
   }
 
   // ------------------------------------------------------------------ sources

@@ -16,6 +16,7 @@ import dev.plumbline.analysis.provenance.ProvenanceAnalysis;
 import dev.plumbline.analysis.provenance.ProvenanceFacts;
 import dev.plumbline.engine.AnalysisKey;
 import dev.plumbline.engine.FileContext;
+import dev.plumbline.flow.AstText;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
 import dev.plumbline.types.Variable;
@@ -63,7 +64,7 @@ public final class RandomnessAnalysis {
       if (s.via() != null) {
         continue; // reported where the helper itself shuffles
       }
-      String subject = s.target().toString();
+      String subject = AstText.code(s.target());
       if (s.seeding() == ProvenanceFacts.Seeding.CLOCK) {
         facts.add(new RandomnessFacts.Draw(s.call(), RandomnessFacts.Kind.CLOCK_SHUFFLE, s.call(),
             subject, s.via()));
@@ -80,7 +81,7 @@ public final class RandomnessAnalysis {
       if (m.isEmpty()) {
         continue;
       }
-      String subject = split.splitData().toString();
+      String subject = AstText.code(split.splitData());
       if (m.get().attribute("randomArg") != null) {
         int i = m.get().intAttribute("randomArg", 0);
         if (i < call.getArguments().size()) {
@@ -103,7 +104,7 @@ public final class RandomnessAnalysis {
           // Located at the method name: in a builder chain the call itself starts lines earlier.
           facts.add(new RandomnessFacts.Draw(call.getName(), RandomnessFacts.Kind.UNSEEDED_FRAMEWORK_GENERATOR,
               call.getName(), call.getNameAsString() + "(" + String.join(", ",
-                  call.getArguments().stream().map(Node::toString).toList()) + ")", null));
+                  call.getArguments().stream().map(AstText::code).toList()) + ")", null));
         }
       }
     }
