@@ -660,6 +660,10 @@ final class ProvenanceEvaluator {
     if (s == null) {
       return unknownResult(call, null);
     }
+    if (!s.settled()) {
+      // A call into the cycle being solved: no rows known yet (bottom), which joins away.
+      return DataValue.data(Set.of(), Set.of());
+    }
     String via = method.name();
     for (ProvenanceSummaries.ParamUse use : s.uses()) {
       if (use.index() >= args.size() || method.isVarArgs() && use.index() >= method.arity() - 1) {

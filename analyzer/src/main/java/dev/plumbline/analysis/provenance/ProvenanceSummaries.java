@@ -38,7 +38,14 @@ public final class ProvenanceSummaries {
       SortedSet<Integer> fromParams, boolean ownData, Set<Node> fields, int parts,
       boolean timeOrdered) {}
 
-  public record MethodSummary(ReturnSummary returns, List<ParamUse> uses) {
+  /**
+   * What a method does with its parameters and returns. {@code settled} is false only while the
+   * method's own call cycle is being solved: a call of it then yields nothing (the bottom of the
+   * lattice) rather than unknown whole rows, so iteration climbs to the least fixed point.
+   */
+  public record MethodSummary(ReturnSummary returns, List<ParamUse> uses, boolean settled) {
+    static final MethodSummary PENDING = new MethodSummary(null, List.of(), false);
+
     public MethodSummary {
       uses = List.copyOf(uses);
     }

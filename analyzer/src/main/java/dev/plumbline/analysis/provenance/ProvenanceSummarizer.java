@@ -78,6 +78,11 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     for (int round = 0; round < FIELD_ROUNDS; round++) {
       lastWrites.clear();
       for (List<Method> component : components) {
+        for (Method m : component) {
+          if (summaries.method(m.declaration()) == null) {
+            summaries.put(m.declaration(), ProvenanceSummaries.MethodSummary.PENDING);
+          }
+        }
         for (int i = 0; i < ROUNDS_PER_COMPONENT; i++) {
           boolean changed = false;
           for (Method m : component) {
@@ -118,7 +123,8 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
       Map<Node, List<ProvenanceFacts.FieldWrite>> writes) {
     ProvenanceFacts facts = new ProvenanceFacts();
     if (!ProvenanceAnalysis.analyzeGraph(m.file(), m.graph(), ProvenanceAnalysis.Mode.SUMMARY, facts)) {
-      return false;
+      // No fixed point: callers treat its result as unknown rows and know none of its uses.
+      return summaries.put(m.declaration(), new ProvenanceSummaries.MethodSummary(null, List.of(), true));
     }
     for (ProvenanceFacts.FieldWrite w : facts.fieldWrites()) {
       writes.computeIfAbsent(w.field(), k -> new ArrayList<>()).add(w);
@@ -159,7 +165,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
       }
     }
     return summaries.put(m.declaration(), new ProvenanceSummaries.MethodSummary(
-        returnSummary(m.declaration(), returned), uses));
+        returnSummary(m.declaration(), returned), uses, true));
   }
 
   private static void addUse(List<ProvenanceSummaries.ParamUse> uses, ProvenanceSummaries.ParamUse use) {
