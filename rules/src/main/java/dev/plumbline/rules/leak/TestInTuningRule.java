@@ -58,8 +58,11 @@ public final class TestInTuningRule implements Rule {
           .message(variant.equals("selection") ? ID : ID + "." + variant, Snippets.of(e.call()),
               Snippets.of(e.argument()), Snippets.of(origin), Snippets.line(origin),
               Snippets.of(decided), Snippets.line(decided), loopVariable)
-          .related(use.decision() == e.call() ? null : use.decision(), "related.test-decides",
-              Snippets.of(e.argument()))
+          .related(use.decision() == e.call() ? null : use.decision(),
+              use.steering() == LoopRoleFacts.Steering.HYPERPARAMETER_COMPARISON
+                  ? "related.hyperparameter-configures" : "related.test-decides",
+              use.steering() == LoopRoleFacts.Steering.HYPERPARAMETER_COMPARISON
+                  ? loopVariable : Snippets.of(e.argument()))
           .related(origin, certainty == Evidence.Certainty.NAMED ? "related.named-test" : "related.becomes-test",
               Snippets.of(e.argument()))
           .fix(use.steering() == LoopRoleFacts.Steering.EARLY_STOPPING_CONFIGURATION
