@@ -16,7 +16,6 @@ import java.util.ArrayList;
 import java.util.Deque;
 import java.util.EnumSet;
 import java.util.IdentityHashMap;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -33,8 +32,9 @@ import java.util.TreeSet;
  * graph (callees first), by running {@link ProvenanceAnalysis} in {@link ProvenanceAnalysis.Mode#SUMMARY}
  * mode. A recursive component is iterated at most {@value #ROUNDS_PER_COMPONENT} times; if it has
  * not settled by then its last summaries stand (they may miss uses, which only makes the rules say
- * less). Field summaries depend on method summaries and the other way round, so the whole pass is
- * repeated until field summaries settle, at most {@value #FIELD_ROUNDS} times. Deterministic:
+ * less). Field summaries depend on method summaries and the other way round, so after a pass the
+ * methods that read a field whose summary changed (or call a method whose summary changed) are
+ * summarized again, until field summaries settle, at most {@value #FIELD_ROUNDS} passes. Deterministic:
  * methods are visited in the files' sorted order and source order within a file.
  */
 public final class ProvenanceSummarizer implements ProjectAnalysis {
@@ -73,11 +73,16 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     ProvenanceSummaries summaries = new ProvenanceSummaries();
     out.put(ProvenanceSummaries.class, summaries);
     List<Method> methods = methods(files);
-    List<List<Method>> components = new CallGraph(methods).componentsCalleesFirst();
-    Map<Node, List<ProvenanceFacts.FieldWrite>> lastWrites = new IdentityHashMap<>();
+    CallGraph callGraph = new CallGraph(methods);
+    List<List<Method>> components = callGraph.componentsCalleesFirst();
+    Map<Node, List<ProvenanceFacts.FieldWrite>> writes = new IdentityHashMap<>();
+    Set<String> changedFields = null; // null: first round, summarize everything
     for (int round = 0; round < FIELD_ROUNDS; round++) {
-      lastWrites.clear();
+      Set<Method> changedMethods = java.util.Collections.newSetFromMap(new IdentityHashMap<>());
       for (List<Method> component : components) {
+        if (changedFields != null && !affected(component, changedFields, changedMethods, callGraph)) {
+          continue; // reads no field that changed and calls nothing that changed: same summary
+        }
         for (Method m : component) {
           if (summaries.method(m.declaration()) == null) {
             summaries.put(m.declaration(), ProvenanceSummaries.MethodSummary.PENDING);
@@ -86,17 +91,39 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
         for (int i = 0; i < ROUNDS_PER_COMPONENT; i++) {
           boolean changed = false;
           for (Method m : component) {
-            changed |= summarize(m, summaries, lastWrites);
+            if (summarize(m, summaries, writes)) {
+              changed = true;
+              changedMethods.add(m);
+            }
           }
           if (!changed || component.size() == 1 && !calls(component.get(0), component.get(0))) {
             break;
           }
         }
       }
-      if (!updateFields(files, summaries, lastWrites)) {
+      changedFields = updateFields(files, summaries, writes);
+      if (changedFields.isEmpty()) {
         break;
       }
     }
+  }
+
+  /** Whether a component must be summarized again after some fields' summaries changed. */
+  private static boolean affected(List<Method> component, Set<String> changedFields,
+      Set<Method> changedMethods, CallGraph callGraph) {
+    for (Method m : component) {
+      for (Method callee : callGraph.callees(m)) {
+        if (changedMethods.contains(callee)) {
+          return true;
+        }
+      }
+      boolean readsChanged = m.declaration().findFirst(com.github.javaparser.ast.expr.SimpleName.class,
+          n -> changedFields.contains(n.getIdentifier())).isPresent();
+      if (readsChanged) {
+        return true;
+      }
+    }
+    return false;
   }
 
   private static boolean calls(Method from, Method to) {
@@ -125,6 +152,10 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     if (!ProvenanceAnalysis.analyzeGraph(m.file(), m.graph(), ProvenanceAnalysis.Mode.SUMMARY, facts)) {
       // No fixed point: callers treat its result as unknown rows and know none of its uses.
       return summaries.put(m.declaration(), new ProvenanceSummaries.MethodSummary(null, List.of(), true));
+    }
+    // This method's writes replace the ones it made when last summarized.
+    for (List<ProvenanceFacts.FieldWrite> list : writes.values()) {
+      list.removeIf(w -> w.graph() == m.graph());
     }
     for (ProvenanceFacts.FieldWrite w : facts.fieldWrites()) {
       writes.computeIfAbsent(w.field(), k -> new ArrayList<>()).add(w);
@@ -221,13 +252,13 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
   }
 
   /**
-   * Recomputes what each field may hold from every write and initializer; returns whether any
-   * field summary changed. A write of untracked rows or of a caller's argument counts as whatever
-   * the field's name says, else whole rows.
+   * Recomputes what each field may hold from every write and initializer; returns the names of
+   * the fields whose summary changed. A write of untracked rows or of a caller's argument counts
+   * as whatever the field's name says, else whole rows.
    */
-  private static boolean updateFields(List<FileContext> files, ProvenanceSummaries summaries,
+  private static Set<String> updateFields(List<FileContext> files, ProvenanceSummaries summaries,
       Map<Node, List<ProvenanceFacts.FieldWrite>> writes) {
-    boolean changed = false;
+    Set<String> changed = new TreeSet<>();
     for (FileContext file : files) {
       for (FieldDeclaration fd : file.source().unit().findAll(FieldDeclaration.class)) {
         for (VariableDeclarator d : fd.getVariables()) {
@@ -245,8 +276,8 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
             continue;
           }
           ProvenanceSummaries.FieldSummary s = fieldSummary(d, values, sites);
-          if (s != null) {
-            changed |= summaries.putField(d, s);
+          if (s != null && summaries.putField(d, s)) {
+            changed.add(d.getNameAsString());
           }
         }
       }
@@ -295,7 +326,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
   private static final class CallGraph {
     private final List<Method> methods;
     private final Map<Node, Method> byDeclaration = new IdentityHashMap<>();
-    private final Map<Method, List<Method>> callees = new LinkedHashMap<>();
+    private final Map<Method, List<Method>> callees = new IdentityHashMap<>();
 
     CallGraph(List<Method> methods) {
       this.methods = methods;
@@ -312,6 +343,10 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
         }
         callees.put(m, out);
       }
+    }
+
+    List<Method> callees(Method m) {
+      return callees.get(m);
     }
 
     List<List<Method>> componentsCalleesFirst() {
