@@ -44,7 +44,7 @@ public final class FileContext {
     this.settings = settings;
     this.project = project;
     this.projectFacts = projectFacts;
-    TypeResolver resolver = new TypeResolver(source.unit(), project.model(), project.typeNames());
+    TypeResolver resolver = new TypeResolver(source.unit(), project.model(), project::hasType);
     this.types = new ExpressionTypes(new SymbolTable(source.unit(), resolver), project);
   }
 

@@ -85,7 +85,7 @@ public final class ProjectIndex {
     Set<String> typeNames = Set.copyOf(names);
     Map<String, ProjectType> types = new LinkedHashMap<>();
     for (CompilationUnit unit : units) {
-      TypeResolver resolver = new TypeResolver(unit, model, typeNames);
+      TypeResolver resolver = new TypeResolver(unit, model, typeNames::contains);
       for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
         Optional<String> qualified = type.getFullyQualifiedName();
         if (qualified.isEmpty() || types.containsKey(qualified.get())) {
@@ -128,6 +128,11 @@ public final class ProjectIndex {
 
   public ApiModel model() {
     return model;
+  }
+
+  /** Whether the project declares a type of this qualified name. */
+  public boolean hasType(String name) {
+    return types.containsKey(name);
   }
 
   public Optional<ProjectType> type(String name) {

@@ -1,9 +1,16 @@
 package dev.plumbline.rules;
 
+import dev.plumbline.analysis.loops.ConfigurationReach;
+import dev.plumbline.analysis.provenance.ProvenanceSummarizer;
+import dev.plumbline.analysis.randomness.ProjectSeeding;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.Rule;
+import dev.plumbline.rules.leak.FitOnTestRule;
 import dev.plumbline.rules.leak.PreprocessingBeforeSplitRule;
+import dev.plumbline.rules.leak.TemporalShuffleRule;
+import dev.plumbline.rules.leak.TestInTuningRule;
+import dev.plumbline.rules.repro.UnseededRandomnessRule;
 import dev.plumbline.rules.suppression.InvalidSuppressionRule;
 import java.util.ArrayList;
 import java.util.Comparator;
@@ -24,7 +31,12 @@ public final class BuiltInRules {
   /** All built-in rules, sorted by id. New instances each call; rules are stateless. */
   public static List<Rule> all() {
     List<Rule> rules = new ArrayList<>(List.<Rule>of(
-        new PreprocessingBeforeSplitRule()));
+        new PreprocessingBeforeSplitRule(),
+        // ---- provenance and loop roles (issue 3)
+        new FitOnTestRule(),
+        new TestInTuningRule(),
+        new TemporalShuffleRule(),
+        new UnseededRandomnessRule()));
     // ---- the suppression check knows every rule id, its own included
     Set<String> ids = new TreeSet<>();
     rules.forEach(r -> ids.add(r.descriptor().id()));
@@ -41,7 +53,11 @@ public final class BuiltInRules {
 
   /** Project-wide analyses (method summaries) that the rules' analyses consult. */
   public static List<ProjectAnalysis> projectAnalyses() {
-    return List.of();
+    return List.of(
+        // ---- provenance (issue 3)
+        new ProvenanceSummarizer(),
+        new ConfigurationReach(),
+        new ProjectSeeding());
   }
 
   public static MessageCatalog messages() {

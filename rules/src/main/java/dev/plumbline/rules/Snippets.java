@@ -2,6 +2,7 @@ package dev.plumbline.rules;
 
 import com.github.javaparser.ast.Node;
 import dev.plumbline.parse.LineMap;
+import dev.plumbline.flow.AstText;
 
 /** Short renderings of code for message arguments. */
 public final class Snippets {
@@ -9,12 +10,15 @@ public final class Snippets {
 
   private Snippets() {}
 
-  /** The code as written, whitespace collapsed, shortened with an ellipsis past {@value #MAX} chars. */
+  /**
+   * The code as written without comments, whitespace collapsed, shortened with an ellipsis past
+   * {@value #MAX} chars.
+   */
   public static String of(Node node) {
     if (node == null) {
       return "?";
     }
-    String s = node.toString().replaceAll("\\s+", " ").trim();
+    String s = AstText.code(node);
     return s.length() <= MAX ? s : s.substring(0, MAX - 3) + "...";
   }
 

@@ -35,7 +35,12 @@ class GoldenCorpusTest {
    * introduced each rule. A rule missing here must have at least one of each.
    */
   private static final Map<String, Integer> MINIMUM_CASES = Map.of(
-      "leak.preprocessing-before-split", 6);
+      // ---- provenance and loop roles (issue 3)
+      "leak.preprocessing-before-split", 8,
+      "leak.fit-on-test", 8,
+      "leak.test-in-tuning", 8,
+      "leak.temporal-shuffle", 8,
+      "repro.unseeded-randomness", 8);
 
   private static ScanResult result;
   private static List<Expectations.Mark> marks;

@@ -46,7 +46,10 @@ final class FitOnTrainingPart {
 
   static Optional<Edit> plan(FileContext file, ProvenanceFacts facts, ProvenanceFacts.Fit fit,
       List<ProvenanceFacts.Split> splits) {
-    MethodCallExpr call = fit.call();
+    // Only a fit written here: one made inside a helper (via) is fixed in the helper, not here.
+    if (!(fit.call() instanceof MethodCallExpr call) || fit.via() != null) {
+      return Optional.empty();
+    }
     if (!fit.data().onlyWhole() || splits.size() != 1 || call.getArguments().size() != 1
         || call.getTypeArguments().isPresent()
         || !(fit.argument() instanceof NameExpr)
