@@ -29,6 +29,7 @@ final class ScanProgress implements Scanner.ScanListener, AutoCloseable {
   private long done;
   private long lastLine;
   private boolean printedLine;
+  private long doneAtLastLine = -1;
   private ProgressBar bar;
 
   /**
@@ -77,6 +78,7 @@ final class ScanProgress implements Scanner.ScanListener, AutoCloseable {
   }
 
   private void line() {
+    doneAtLastLine = done;
     err.println("plumbline: " + done + " of " + total + " files analyzed");
     err.flush();
   }
@@ -87,8 +89,8 @@ final class ScanProgress implements Scanner.ScanListener, AutoCloseable {
       bar.stepTo(done);
       bar.close();
       bar = null;
-    } else if (printedLine) {
-      line();
+    } else if (printedLine && done != doneAtLastLine) {
+      line(); // the final count, unless the last line already said it
     }
   }
 }
