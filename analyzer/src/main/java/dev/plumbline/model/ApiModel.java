@@ -326,14 +326,7 @@ public final class ApiModel {
       return true;
     }
     if (from.endsWith("[]") || to.endsWith("[]")) {
-      // Arrays convert only to arrays of a reference supertype (JLS 5.1.5); never primitive ones.
-      if (!from.endsWith("[]") || !to.endsWith("[]")) {
-        return false;
-      }
-      String f = from.substring(0, from.length() - 2);
-      String t = to.substring(0, to.length() - 2);
-      return !WIDENING.contains(f) && !WIDENING.contains(t) && !f.equals("boolean") && !t.equals("boolean")
-          && assignable(f, t);
+      return arrayAssignable(from, to);
     }
     int f = WIDENING.indexOf(from);
     int t = WIDENING.indexOf(to);
@@ -354,6 +347,27 @@ public final class ApiModel {
       return isSubtype(from, to) || !types.containsKey(to);
     }
     return true; // an unlisted class type: we cannot tell, so do not exclude the overload
+  }
+
+  /**
+   * JLS 5.2 for arrays: an array goes to {@code Object}, {@code Cloneable} or
+   * {@code Serializable}, or to an array of the same depth whose element type it can be assigned
+   * to by reference; arrays of primitives only to the identical type.
+   */
+  private boolean arrayAssignable(String from, String to) {
+    if (!from.endsWith("[]")) {
+      return false;
+    }
+    if (!to.endsWith("[]")) {
+      return to.equals("java.lang.Cloneable") || to.equals("java.io.Serializable");
+    }
+    String fromElement = from.substring(0, from.length() - 2);
+    String toElement = to.substring(0, to.length() - 2);
+    if (WIDENING.contains(fromElement) || WIDENING.contains(toElement)
+        || fromElement.equals("boolean") || toElement.equals("boolean")) {
+      return fromElement.equals(toElement);
+    }
+    return assignable(fromElement, toElement);
   }
 
   private static String boxed(String primitive) {

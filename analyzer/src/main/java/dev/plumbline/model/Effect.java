@@ -41,6 +41,10 @@ public enum Effect {
   SHUFFLE,
   /** Sets a random seed. */
   SEED,
+  /** Adds the rows of the data argument ({@code dataArg}) to the receiver collection. */
+  ADD_ROWS,
+  /** The receiver (a record reader) reads its rows from the data argument ({@code dataArg}) from now on. */
+  READ_FROM,
 
   // tensors
   /**

@@ -62,15 +62,30 @@ public final class ProjectIndex {
   private final ApiModel model;
   private final Map<String, ProjectType> types;
 
-  private ProjectIndex(ApiModel model, Map<String, ProjectType> types) {
+  private final Set<String> typeNames;
+
+  private ProjectIndex(ApiModel model, Map<String, ProjectType> types, Set<String> typeNames) {
     this.model = model;
     this.types = types;
+    this.typeNames = typeNames;
+  }
+
+  /** Qualified names of all types the project declares (for resolving names across files). */
+  public Set<String> typeNames() {
+    return typeNames;
   }
 
   public static ProjectIndex build(ApiModel model, Collection<CompilationUnit> units) {
+    Set<String> names = new HashSet<>();
+    for (CompilationUnit unit : units) {
+      for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
+        type.getFullyQualifiedName().ifPresent(names::add);
+      }
+    }
+    Set<String> typeNames = Set.copyOf(names);
     Map<String, ProjectType> types = new LinkedHashMap<>();
     for (CompilationUnit unit : units) {
-      TypeResolver resolver = new TypeResolver(unit, model);
+      TypeResolver resolver = new TypeResolver(unit, model, typeNames::contains);
       for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
         Optional<String> qualified = type.getFullyQualifiedName();
         if (qualified.isEmpty() || types.containsKey(qualified.get())) {
@@ -103,16 +118,21 @@ public final class ProjectIndex {
             List.copyOf(methods)));
       }
     }
-    return new ProjectIndex(model, Map.copyOf(types));
+    return new ProjectIndex(model, Map.copyOf(types), typeNames);
   }
 
   /** An index with no project types, for analyzing a lone snippet. */
   public static ProjectIndex empty(ApiModel model) {
-    return new ProjectIndex(model, Map.of());
+    return new ProjectIndex(model, Map.of(), Set.of());
   }
 
   public ApiModel model() {
     return model;
+  }
+
+  /** Whether the project declares a type of this qualified name. */
+  public boolean hasType(String name) {
+    return types.containsKey(name);
   }
 
   public Optional<ProjectType> type(String name) {

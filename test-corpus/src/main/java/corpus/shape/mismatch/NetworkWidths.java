@@ -28,6 +28,7 @@ class NetworkWidths {
 
   ComputationGraphConfiguration graphRight() {
     return new NeuralNetConfiguration.Builder()
+        .seed(7)
         .graphBuilder()
         .addInputs("sensors")
         .addLayer("hidden", new DenseLayer.Builder().nIn(6).nOut(24).build(), "sensors")
@@ -40,6 +41,7 @@ class NetworkWidths {
   /** In a list() configuration DL4J replaces a written nIn by the previous nOut: it runs. */
   MultiLayerConfiguration listWithStaleWidth() {
     return new NeuralNetConfiguration.Builder()
+        .seed(7)
         .updater(new Adam(1e-3))
         .list()
         .layer(new DenseLayer.Builder().nIn(6).nOut(24).build())
@@ -50,6 +52,7 @@ class NetworkWidths {
 
   MultiLayerConfiguration listKeepingWidths() {
     return new NeuralNetConfiguration.Builder()
+        .seed(7)
         .list()
         .layer(new DenseLayer.Builder().nIn(6).nOut(24).build())
         .layer(new OutputLayer.Builder(LossFunctions.LossFunction.MSE) // expect: shape.mismatch

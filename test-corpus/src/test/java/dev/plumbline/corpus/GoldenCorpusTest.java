@@ -35,8 +35,13 @@ class GoldenCorpusTest {
    * introduced each rule. A rule missing here must have at least one of each.
    */
   private static final Map<String, Integer> MINIMUM_CASES = Map.of(
-      "leak.preprocessing-before-split", 6,
-      // shape rules (issue 4)
+      // ---- provenance and loop roles (issue 3)
+      "leak.preprocessing-before-split", 8,
+      "leak.fit-on-test", 8,
+      "leak.test-in-tuning", 8,
+      "leak.temporal-shuffle", 8,
+      "repro.unseeded-randomness", 8,
+      // ---- shape rules (issue 4)
       "shape.mismatch", 8,
       "shape.implicit-broadcast", 8,
       "shape.reduced-dim-broadcast", 8,
@@ -48,9 +53,10 @@ class GoldenCorpusTest {
 
   @BeforeAll
   static void scan() {
-    result = CorpusScan.scan(2, CorpusScan.SOURCES, CorpusScan.DEMO);
+    result = CorpusScan.scan(2, CorpusScan.SOURCES, CorpusScan.DEMO, CorpusScan.NOTEBOOKS);
     marks = new ArrayList<>(Expectations.read(CorpusScan.MODULE, CorpusScan.SOURCES));
     marks.addAll(Expectations.read(CorpusScan.MODULE, CorpusScan.DEMO));
+    marks.addAll(Expectations.read(CorpusScan.MODULE, CorpusScan.NOTEBOOKS));
   }
 
   @Test
@@ -123,7 +129,8 @@ class GoldenCorpusTest {
             + f.message().key() + f.message().arguments()
             + f.related().stream().map(r -> " | " + r.location().range().startLine() + ":"
                 + r.location().range().startColumn() + " " + r.message().key())
-                .collect(Collectors.joining()))
+                .collect(Collectors.joining())
+            + f.suppression().map(j -> " | suppressed: " + j).orElse(""))
         .collect(Collectors.joining("\n", "", "\n"));
     if (Boolean.getBoolean("plumbline.refreshGolden")) {
       Files.createDirectories(GOLDEN.getParent());

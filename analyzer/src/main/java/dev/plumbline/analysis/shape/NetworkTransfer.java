@@ -33,8 +33,6 @@ final class NetworkTransfer {
 
   ShapeValue call(MethodCallExpr call, ApiMethod m, ShapeValue receiver, List<ShapeValue> args) {
     switch (m.effect()) {
-      case CONFIGURE:
-        return configure(call, m, receiver, args);
       case BUILD:
         if (receiver instanceof NetworkValue n) {
           checkWidths(n);
@@ -48,7 +46,7 @@ final class NetworkTransfer {
       case PREDICT:
         return model(call, m, receiver, args);
       default:
-        return TensorTransfer.NOT_HANDLED;
+        return configure(call, m, receiver, args);
     }
   }
 
@@ -58,18 +56,23 @@ final class NetworkTransfer {
     return at < args.size() && args.get(at) instanceof NetworkValue n ? n : TensorTransfer.NOT_HANDLED;
   }
 
-  private ShapeValue configure(MethodCallExpr call, ApiMethod m, ShapeValue receiver, List<ShapeValue> args) {
-    String what = String.valueOf(m.attribute("hyperparameter"));
+  /**
+   * A setter on a layer builder or network configuration: attribute {@code width} (in, out) sets
+   * a layer's {@code nIn}/{@code nOut}; attribute {@code network} (inputType, overrideNin) records
+   * how DL4J will treat the widths; any other setter returns the configuration unchanged.
+   */
+  ShapeValue configure(MethodCallExpr call, ApiMethod m, ShapeValue receiver, List<ShapeValue> args) {
+    String width = String.valueOf(m.attribute("width"));
     if (receiver instanceof NetworkValue.Layer layer) {
-      Dim width = !args.isEmpty() && args.get(0) instanceof ShapeValue.Int i ? i.value() : Dim.UNKNOWN;
-      return switch (what) {
-        case "nIn" -> layer.withNIn(width);
-        case "nOut" -> layer.withNOut(width);
+      Dim size = !args.isEmpty() && args.get(0) instanceof ShapeValue.Int i ? i.value() : Dim.UNKNOWN;
+      return switch (width) {
+        case "in" -> layer.withNIn(size);
+        case "out" -> layer.withNOut(size);
         default -> layer;
       };
     }
     if (receiver instanceof NetworkValue n) {
-      return switch (what) {
+      return switch (String.valueOf(m.attribute("network"))) {
         case "inputType" -> n.withInputType();
         case "overrideNin" -> n.withOverrideNin(!call.getArguments().isEmpty() && call.getArgument(0).isBooleanLiteralExpr()
             ? Truth.of(call.getArgument(0).asBooleanLiteralExpr().getValue()) : Truth.UNKNOWN);

@@ -69,7 +69,6 @@ final class TensorTransfer {
         }
         return null;
       }
-      case CONFIGURE:
       case BUILD:
       case ADD_LAYER:
       case LAYER_STACK:
@@ -77,6 +76,10 @@ final class TensorTransfer {
       case PREDICT:
         return new NetworkTransfer(ev, this).call(call, m, receiver, args);
       default:
+        // Setters of layer builders and network configurations keep the value the chain builds.
+        if (receiver instanceof NetworkValue || receiver instanceof NetworkValue.Layer) {
+          return new NetworkTransfer(ev, this).configure(call, m, receiver, args);
+        }
         return NOT_HANDLED;
     }
   }

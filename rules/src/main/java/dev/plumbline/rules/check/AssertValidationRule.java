@@ -34,7 +34,11 @@ public final class AssertValidationRule implements Rule {
         continue;
       }
       String condition = a.statement().getCheck().toString();
-      reporter.at(this, a.statement())
+      FindingReporter.Report.Builder b = reporter.at(this, a.statement());
+      if (a.shape() != null) {
+        b.involves("involved.shape", Snippets.of(a.about()), a.shape().toString());
+      }
+      b
           .message(ID + "." + a.subject().name().toLowerCase(Locale.ROOT), Snippets.of(a.about()),
               a.shape() == null ? "[...]" : a.shape().toString(), Snippets.of(a.statement().getCheck()))
           .fix(ID + ".fix", condition.length() > 80 ? "condition" : condition)

@@ -46,6 +46,8 @@ public final class ImplicitBroadcastRule implements Rule {
           .message(ID, op.call().getNameAsString(), op.operandText(0), a.toString(), op.operandText(1), b.toString(),
               result.toString())
           .fix(ID + ".fix", op.operandText(0), op.operandText(1), a.toString(), b.toString())
+          .involves("involved.shape", op.operandText(0), a.toString())
+          .involves("involved.shape", op.operandText(1), b.toString())
           .emit();
     }
   }

@@ -55,6 +55,8 @@ public final class ReducedDimBroadcastRule implements Rule {
           .related(Snippets.anchor(r.call()), "related.reduced-here", Snippets.of(r.call()), ShapeMismatchRule.axes(r.axes()))
           .fix(ID + (r.viaHelper() ? ".fix.helper" : op.framework() == Framework.DJL ? ".fix.djl" : ".fix.nd4j"),
               op.operandText(source), reduceName, ShapeMismatchRule.axes(r.axes()), kept, op.call().getNameAsString())
+          .involves("involved.shape", op.operandText(source), op.shape(source).toString())
+          .involves("involved.shape", Snippets.of(r.call()), reduced.toString())
           .severity(certain ? Severity.ERROR : Severity.WARNING)
           .emit();
     }

@@ -58,6 +58,7 @@ public final class ShapeMismatchRule implements Rule {
         .message(ID + "." + kind, op.call().getNameAsString(), op.operandText(0), op.shape(0).toString(),
             second, secondShape, dim(e.left()), dim(e.right()), String.valueOf(e.axis()), extra);
     for (int i = 0; i < op.operands().size() && i < 2; i++) {
+      b.involves("involved.shape", op.operandText(i), op.shape(i).toString());
       if (op.origin(i) != null && op.origin(i) != op.call()) {
         b.related(Snippets.anchor(op.origin(i)), "related.shape-set-here", op.operandText(i), op.shape(i).toString());
       }
@@ -92,6 +93,7 @@ public final class ShapeMismatchRule implements Rule {
         MethodCallExpr call = (MethodCallExpr) w.at();
         int arg = w.kind() == ShapeFacts.WidthKind.LABELS ? 1 : 0;
         String data = arg < call.getArguments().size() ? Snippets.of(call.getArgument(arg)) : "?";
+        b.involves("involved.shape", data, String.valueOf(w.shape()));
         b.message(key, call.getNameAsString(), data, String.valueOf(w.shape()), dim(w.expected()), dim(w.actual()))
             .fix(key + ".fix", data, dim(w.expected()), dim(w.actual()));
         if (w.related() != null) {

@@ -47,6 +47,7 @@ public final class UncheckedReshapeRule implements Rule {
               ShapeMismatchRule.arguments(reshape), u.shape().toString(), use, Snippets.line(u.use()))
           .related(Snippets.anchor(u.use()), "related.reshape-used", holder, u.shape().toString())
           .fix(ID + ".fix", holder, String.valueOf(axis))
+          .involves("involved.shape", holder, u.shape().toString())
           .emit();
     }
   }
