@@ -3,7 +3,11 @@ package dev.plumbline.rules;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.Rule;
+import dev.plumbline.analysis.scope.ScopeSummaryAnalysis;
 import dev.plumbline.rules.leak.PreprocessingBeforeSplitRule;
+import dev.plumbline.rules.memory.GraphAccumulationRule;
+import dev.plumbline.rules.memory.ScopeEscapeRule;
+import dev.plumbline.rules.tensor.DiscardedResultRule;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
@@ -20,7 +24,11 @@ public final class BuiltInRules {
   /** All built-in rules, sorted by id. New instances each call; rules are stateless. */
   public static List<Rule> all() {
     return List.<Rule>of(
-            new PreprocessingBeforeSplitRule())
+            new PreprocessingBeforeSplitRule(),
+            // memory and tensor-result rules (scope analysis)
+            new GraphAccumulationRule(),
+            new ScopeEscapeRule(),
+            new DiscardedResultRule())
         .stream()
         .sorted(Comparator.comparing(r -> r.descriptor().id()))
         .toList();
@@ -32,7 +40,9 @@ public final class BuiltInRules {
 
   /** Project-wide analyses (method summaries) that the rules' analyses consult. */
   public static List<ProjectAnalysis> projectAnalyses() {
-    return List.of();
+    return List.of(
+        // helper summaries for the scope analysis
+        new ScopeSummaryAnalysis());
   }
 
   public static MessageCatalog messages() {
