@@ -25,7 +25,9 @@ import java.util.Set;
  * (reported once per loop and scope, at the first such allocation), and a scope opened on every
  * iteration (a batch, a sub-manager) that nothing closes. An allocation that is closed, moved,
  * kept on purpose, or handed to code we do not see is not reported; neither is one whose owner
- * may be released within the iteration on some path.
+ * may be released within the iteration on some path, nor one whose owner is renewed by an
+ * enclosing loop (the arrays of the time steps of one batch are released with the batch, and
+ * the graph needs them until then).
  */
 public final class ScopeEscapeRule implements Rule {
   public static final String ID = "memory.scope-escape";
@@ -75,8 +77,8 @@ public final class ScopeEscapeRule implements Rule {
         continue; // owned by one scope on some paths and another on others: say nothing
       }
       Scope owner = owners.iterator().next();
-      if (!owner.ownsMemory() || facts.opensWithin(owner, loop)) {
-        continue;
+      if (!owner.ownsMemory() || alloc.loops().stream().anyMatch(l -> facts.opensWithin(owner, l))) {
+        continue; // renewed by some enclosing loop: growth is bounded by one of its iterations
       }
       counts.computeIfAbsent(loop, k -> new java.util.HashMap<>()).merge(owner, 1, Integer::sum);
       firsts.computeIfAbsent(loop, k -> new java.util.HashMap<>()).putIfAbsent(owner, alloc);
