@@ -282,14 +282,50 @@ final class ScopeEvaluator {
     }
     if (value != null && value.isTensor()) {
       if (holder.isField()) {
-        store(as, StoreKind.FIELD, holder, as.getValue(), value, null);
+        store(as, StoreKind.FIELD, holder, as.getValue(), as.getValue(), value, null);
         keep(value);
       } else if (carriesOldValue(as.getValue(), holder)) {
-        store(as, StoreKind.ACCUMULATE, holder, as.getValue(), value, previous);
+        store(as, StoreKind.ACCUMULATE, holder, as.getValue(), addedOperand(as.getValue(), holder), value,
+            previous);
       }
     }
     state = state.with(holder, value);
     return value;
+  }
+
+  /**
+   * In {@code total = total.add(loss)}, the operand added to the holder ({@code loss}); in
+   * {@code total = loss.add(total)}, the receiver. Null when the holder only reaches the result
+   * through a call's arguments, as a recurrent state fed back into a forward pass does.
+   */
+  private Expression addedOperand(Expression rhs, Variable holder) {
+    Expression e = rhs;
+    while (true) {
+      if (e instanceof EnclosedExpr en) {
+        e = en.getInner();
+      } else if (e instanceof CastExpr c) {
+        e = c.getExpression();
+      } else if (e instanceof MethodCallExpr c && c.getArguments().isEmpty() && c.getScope().isPresent()) {
+        e = c.getScope().get();
+      } else {
+        break;
+      }
+    }
+    if (!(e instanceof MethodCallExpr call) || call.getScope().isEmpty()) {
+      return null;
+    }
+    Expression receiver = call.getScope().get();
+    if (carriesOldValue(receiver, holder)) {
+      for (Expression arg : call.getArguments()) {
+        TensorValue v = valueOf(arg);
+        if (v != null && v.isTensor()) {
+          return arg;
+        }
+      }
+      return null;
+    }
+    TensorValue r = valueOf(receiver);
+    return r != null && r.isTensor() ? receiver : null;
   }
 
   /**
@@ -584,7 +620,7 @@ final class ScopeEvaluator {
     Variable holder = scope == null ? null : variableOf(scope);
     Expression firstArg = call.getArguments().isEmpty() ? call : call.getArgument(0);
     if (holder != null) {
-      store(call, StoreKind.IN_PLACE, holder, firstArg, fromArgs, receiver);
+      store(call, StoreKind.IN_PLACE, holder, firstArg, firstArg, fromArgs, receiver);
     }
     return updated;
   }
@@ -634,7 +670,7 @@ final class ScopeEvaluator {
   }
 
   private void collect(Node at, Variable holder, Expression valueExpr, TensorValue value) {
-    store(at, StoreKind.COLLECT, holder, valueExpr, value, null);
+    store(at, StoreKind.COLLECT, holder, valueExpr, valueExpr, value, null);
     Statement inner = Loops.innermost(at);
     if (inner == null || Loops.survives(holder, inner)) {
       keep(value);
@@ -708,8 +744,8 @@ final class ScopeEvaluator {
     return value;
   }
 
-  private void store(Node at, StoreKind kind, Variable holder, Expression valueExpr, TensorValue value,
-      TensorValue previous) {
+  private void store(Node at, StoreKind kind, Variable holder, Expression valueExpr, Expression operand,
+      TensorValue value, TensorValue previous) {
     if (sink == null || value == null || !value.isTensor() || a.isSameDiff(a.types.typeOf(valueExpr))) {
       return; // SameDiff variables are graph nodes; growth is in the operations added, recorded apart
     }
@@ -722,7 +758,8 @@ final class ScopeEvaluator {
     if (loops.isEmpty() && !holder.isField()) {
       return; // the holder is itself renewed every iteration
     }
-    sink.add(new ScopeFacts.Store(a.graph, at, kind, holder, valueExpr, value, previous, List.copyOf(loops)));
+    sink.add(new ScopeFacts.Store(a.graph, at, kind, holder, valueExpr, operand, value, previous,
+        List.copyOf(loops)));
   }
 
   private void keep(TensorValue v) {

@@ -39,12 +39,15 @@ public final class ScopeFacts {
    * A tracked value stored into {@code holder}.
    *
    * @param data the value stored (for {@link StoreKind#IN_PLACE}, the operand written in)
+   * @param operand what is added to the holder: for {@link StoreKind#ACCUMULATE} the other operand
+   *     of the operation on the holder ({@code loss} in {@code total = total.add(loss)}), or null
+   *     when the holder is fed back through a call instead (a recurrent state); otherwise the value
    * @param previous for {@link StoreKind#ACCUMULATE} and {@link StoreKind#IN_PLACE}: the holder's
    *     value just before, whose graph the new value carries on; null otherwise
    * @param loops enclosing loops across whose iterations the holder keeps its value, innermost first
    */
   public record Store(ControlFlowGraph graph, Node at, StoreKind kind, Variable holder,
-      Expression value, TensorValue data, TensorValue previous, List<Statement> loops) {
+      Expression value, Expression operand, TensorValue data, TensorValue previous, List<Statement> loops) {
 
     /** Whether the holder chains a graph from one iteration into the next through this store. */
     public boolean chainsGraph() {

@@ -52,22 +52,33 @@ public final class GraphAccumulationRule implements Rule {
       Statement loop = graphLoop(facts, store);
       boolean certain = store.data().certainlyAttached();
       String holder = store.holder().name();
-      String value = Snippets.of(store.value());
       Node origin = store.data().origins().isEmpty() ? null : store.data().origins().sorted().get(0);
       if (store.kind() == ScopeFacts.StoreKind.FIELD || loop == null && store.holder().isField()) {
+        String value = Snippets.of(store.value());
         reporter.at(this, store.at())
             .message(ID + ".field", holder, value)
             .related(origin, "related.memory.graph-origin", Snippets.of(origin))
             .fix(ID + ".fix.detach", value)
             .severity(Severity.WARNING)
             .emit();
-      } else if (loop != null) {
-        String variant = store.kind() == ScopeFacts.StoreKind.COLLECT ? ".collect" : "";
+      } else if (loop != null && store.operand() == null) {
+        // The holder is fed back through a call (a recurrent state): each step extends its graph.
         reporter.at(this, store.at())
-            .message(ID + variant + (certain ? "" : ".possible"), holder, value, Snippets.line(loop))
+            .message(ID + ".state" + (certain ? "" : ".possible"), holder, Snippets.of(store.value()),
+                Snippets.line(loop))
             .related(origin, "related.memory.graph-origin", Snippets.of(origin))
             .related(loop, "related.memory.training-loop")
-            .fix(ID + ".fix.detach", value)
+            .fix(ID + ".fix.detach-state", holder)
+            .severity(certain ? Severity.ERROR : Severity.WARNING)
+            .emit();
+      } else if (loop != null) {
+        String variant = store.kind() == ScopeFacts.StoreKind.COLLECT ? ".collect" : "";
+        String operand = Snippets.of(store.operand());
+        reporter.at(this, store.at())
+            .message(ID + variant + (certain ? "" : ".possible"), holder, operand, Snippets.line(loop))
+            .related(origin, "related.memory.graph-origin", Snippets.of(origin))
+            .related(loop, "related.memory.training-loop")
+            .fix(ID + ".fix.detach", operand)
             .severity(certain ? Severity.ERROR : Severity.WARNING)
             .emit();
       }
@@ -148,9 +159,13 @@ public final class GraphAccumulationRule implements Rule {
   private void reportClosedScope(FindingReporter reporter, ScopeFacts.Store store, Scope scope) {
     boolean workspace = scope.kind() == Scope.Kind.WORKSPACE;
     String value = Snippets.of(store.value());
+    String variant = switch (scope.kind()) {
+      case WORKSPACE -> ".closed-workspace";
+      case BATCH -> ".closed-batch";
+      default -> ".closed-manager";
+    };
     reporter.at(this, store.at())
-        .message(ID + (workspace ? ".closed-workspace" : ".closed-manager"), store.holder().name(), value,
-            scope.label())
+        .message(ID + variant, store.holder().name(), value, scope.label())
         .related(scope.site(), workspace ? "related.memory.workspace-opened" : "related.memory.scope-per-iteration",
             scope.label())
         .fix(ID + (workspace ? ".fix.leave-workspace" : ".fix.keep-java-value"), value)

@@ -64,7 +64,6 @@ public final class ScopeEscapeRule implements Rule {
         accumulated.add(store.value()); // the same line is already a graph accumulation
       }
     }
-    Map<Statement, Map<Scope, Integer>> counts = new IdentityHashMap<>();
     Map<Statement, Map<Scope, ScopeFacts.Allocation>> firsts = new IdentityHashMap<>();
     for (ScopeFacts.Allocation alloc : facts.allocations()) {
       if (alloc.loops().isEmpty() || facts.released(alloc.call()) || facts.kept(alloc.call())
@@ -80,7 +79,6 @@ public final class ScopeEscapeRule implements Rule {
       if (!owner.ownsMemory() || alloc.loops().stream().anyMatch(l -> facts.opensWithin(owner, l))) {
         continue; // renewed by some enclosing loop: growth is bounded by one of its iterations
       }
-      counts.computeIfAbsent(loop, k -> new java.util.HashMap<>()).merge(owner, 1, Integer::sum);
       firsts.computeIfAbsent(loop, k -> new java.util.HashMap<>()).putIfAbsent(owner, alloc);
     }
     for (Map.Entry<Statement, Map<Scope, ScopeFacts.Allocation>> perLoop : firsts.entrySet()) {
@@ -88,20 +86,24 @@ public final class ScopeEscapeRule implements Rule {
       for (Map.Entry<Scope, ScopeFacts.Allocation> e : perLoop.getValue().entrySet()) {
         Scope owner = e.getKey();
         ScopeFacts.Allocation alloc = e.getValue();
-        String count = String.valueOf(counts.get(loop).get(owner));
         String variant = switch (owner.kind()) {
           case WORKSPACE -> ".workspace";
           case TENSOR_OWNER -> ".tensor-owner";
           case BATCH -> ".batch";
           default -> "";
         };
+        String fix = switch (owner.kind()) {
+          case WORKSPACE -> ".fix.workspace-per-iteration";
+          case TENSOR_OWNER -> ".fix.temp-attach";
+          default -> ".fix.sub-manager";
+        };
+        String whereFrom = owner.kind() == Scope.Kind.TENSOR_OWNER ? "related.memory.array-enters"
+            : owner.opened() ? "related.memory.scope-outside-loop" : "related.memory.scope-from-outside";
         reporter.at(this, alloc.call())
-            .message(ID + variant, Snippets.of(alloc.call()), Snippets.line(loop), owner.label(), count)
-            .related(owner.site(), owner.kind() == Scope.Kind.TENSOR_OWNER
-                ? "related.memory.array-enters" : "related.memory.scope-outside-loop", owner.label())
+            .message(ID + variant, Snippets.of(alloc.call()), Snippets.line(loop), owner.label())
+            .related(owner.site(), whereFrom, owner.label())
             .related(loop, "related.memory.allocating-loop")
-            .fix(ID + (owner.kind() == Scope.Kind.WORKSPACE ? ".fix.workspace-per-iteration" : ".fix.sub-manager"),
-                owner.label())
+            .fix(ID + fix, owner.label())
             .emit();
       }
     }

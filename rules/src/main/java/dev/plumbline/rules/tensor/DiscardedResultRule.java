@@ -33,18 +33,19 @@ public final class DiscardedResultRule implements Rule {
     for (ScopeFacts.DiscardedResult d : facts.discardedResults()) {
       String method = d.call().getNameAsString();
       String receiver = Snippets.of(d.receiver());
+      String call = Snippets.of(d.call());
       switch (d.kind()) {
         case DETACH -> {
           boolean attached = d.receiverData() != null && d.receiverData().mayBeAttached();
           reporter.at(this, d.call())
               .message(ID + (attached ? ".detach-attached" : ".detach"), method, receiver)
-              .fix(ID + ".fix.assign-back", receiver, method)
+              .fix(ID + ".fix.assign-back", receiver, call)
               .severity(Severity.ERROR)
               .emit();
         }
         case LEAVE_SCOPE -> reporter.at(this, d.call())
             .message(ID + ".leave-workspace", method, receiver)
-            .fix(ID + ".fix.assign-back", receiver, method)
+            .fix(ID + ".fix.assign-back", receiver, call)
             .severity(Severity.ERROR)
             .emit();
         case TEMPORARY -> reporter.at(this, d.call())
@@ -54,13 +55,22 @@ public final class DiscardedResultRule implements Rule {
         default -> {
           FindingReporter.Report.Builder b = reporter.at(this, d.call()).message(ID, method, receiver);
           if (d.inPlaceVariant() != null) {
-            b.fix(ID + ".fix.in-place", receiver, method, d.inPlaceVariant());
+            b.fix(ID + ".fix.in-place", receiver, call, inPlaceCall(d));
           } else {
-            b.fix(ID + ".fix.assign", receiver, method);
+            b.fix(ID + ".fix.assign", receiver, call);
           }
           b.emit();
         }
       }
     }
+  }
+
+  /** {@code x.addi(y)} for {@code x.add(y)}. */
+  private static String inPlaceCall(ScopeFacts.DiscardedResult d) {
+    StringBuilder sb = new StringBuilder(Snippets.of(d.receiver())).append('.').append(d.inPlaceVariant()).append('(');
+    for (int i = 0; i < d.call().getArguments().size(); i++) {
+      sb.append(i == 0 ? "" : ", ").append(Snippets.of(d.call().getArgument(i)));
+    }
+    return sb.append(')').toString();
   }
 }
