@@ -74,6 +74,7 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
   final ControlFlowGraph graph;
   final EntryContext context;
   final ScopeSummaries summaries;
+  final TypeTraits traits;
   private final Map<Node, Map<Scope.Kind, Scope>> scopes = new IdentityHashMap<>();
   private final Map<TryStmt, List<Scope>> resourceScopes = new IdentityHashMap<>();
 
@@ -83,6 +84,7 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
     this.graph = graph;
     this.context = context;
     this.summaries = summaries;
+    this.traits = file.analysis(TypeTraits.KEY);
   }
 
   static ScopeFacts analyzeFile(FileContext file) {
@@ -92,8 +94,9 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
     for (ControlFlowGraph g : file.graphs()) {
       new ScopeAnalysis(file, g, EntryContext.NORMAL, summaries).run(facts);
     }
+    TypeTraits traits = file.analysis(TypeTraits.KEY);
     for (Statement loop : file.source().unit().findAll(Statement.class, Loops::isLoop)) {
-      facts.loop(loop, traits(file.types(), summaries, loop));
+      facts.loop(loop, traits(traits, summaries, loop));
     }
     return facts;
   }
@@ -238,7 +241,7 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
   Scope resourceScope(VariableDeclarator d) {
     Optional<Expression> init = d.getInitializer();
     if (init.isPresent() && init.get() instanceof MethodCallExpr call) {
-      Optional<ApiMethod> m = types.apiMethod(call);
+      Optional<ApiMethod> m = traits.apiMethod(call);
       if (m.isPresent() && (m.get().effect() == Effect.OPEN_GRADIENT_SCOPE
           || m.get().effect() == Effect.OPEN_MEMORY_SCOPE) && !"receiver".equals(m.get().attribute("activates"))) {
         return scopeAt(call, openedKind(m.get()), true);
@@ -280,39 +283,12 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
 
   /** How a value of this static type is tracked, or null when it is not. */
   TensorValue.Kind trackedKind(String type) {
-    if (type == null) {
-      return null;
-    }
-    if (type.endsWith("[]")) {
-      String element = type.substring(0, type.length() - 2);
-      return types.project().hasRole(element, TypeRole.TENSOR) ? TensorValue.Kind.TENSOR_LIST : null;
-    }
-    ProjectIndex p = types.project();
-    if (p.hasRole(type, TypeRole.TENSOR)) {
-      return TensorValue.Kind.TENSOR;
-    }
-    if (p.hasRole(type, TypeRole.TENSOR_LIST)) {
-      return TensorValue.Kind.TENSOR_LIST;
-    }
-    return handleKind(type) != null ? TensorValue.Kind.SCOPE_HANDLE : null;
+    return traits.trackedKind(type);
   }
 
   /** The kind of scope a handle of this type denotes, or null. */
   Scope.Kind handleKind(String type) {
-    ProjectIndex p = types.project();
-    if (type == null) {
-      return null;
-    }
-    if (p.hasRole(type, TypeRole.GRADIENT_SCOPE)) {
-      return Scope.Kind.AUTOGRAD;
-    }
-    if (p.hasRole(type, TypeRole.SCOPED_RESOURCE)) {
-      return Scope.Kind.BATCH;
-    }
-    if (p.hasRole(type, TypeRole.MEMORY_SCOPE)) {
-      return "djl".equals(framework(type)) ? Scope.Kind.MANAGER : Scope.Kind.WORKSPACE;
-    }
-    return null;
+    return traits.handleKind(type);
   }
 
   static Scope.Kind openedKind(ApiMethod m) {
@@ -327,21 +303,11 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
 
   /** Framework of the nearest listed library type: djl, nd4j, ... or null. */
   String framework(String type) {
-    if (type == null) {
-      return null;
-    }
-    String t = type.endsWith("[]") ? type.substring(0, type.length() - 2) : type;
-    return types.project().nearestLibraryType(t)
-        .flatMap(file.model()::type).map(at -> at.framework()).orElse(null);
+    return traits.framework(type);
   }
 
   boolean isSameDiff(String type) {
-    if (type == null) {
-      return false;
-    }
-    Optional<String> library = types.project().nearestLibraryType(type);
-    return library.isPresent()
-        && file.model().typeAttribute(library.get(), "graph").map("samediff"::equals).orElse(false);
+    return traits.isSameDiff(type);
   }
 
   boolean returnsTracked(ApiMethod m) {
@@ -378,24 +344,24 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
   // ------------------------------------------------------------------ loop traits
 
   /** What each iteration of {@code loop} does: record gradients, run a SameDiff graph. */
-  static ScopeFacts.LoopTraits traits(ExpressionTypes types, ScopeSummaries summaries, Statement loop) {
+  static ScopeFacts.LoopTraits traits(TypeTraits traits, ScopeSummaries summaries, Statement loop) {
     boolean records = false;
     boolean sameDiff = false;
     for (MethodCallExpr call : loop.findAll(MethodCallExpr.class, c -> Loops.perIteration(loop, c))) {
-      records |= recordsGradients(types, summaries, call);
-      sameDiff |= runsSameDiff(types, call);
+      records |= recordsGradients(traits, summaries, call);
+      sameDiff |= runsSameDiff(traits, call);
     }
     return new ScopeFacts.LoopTraits(records, sameDiff);
   }
 
   /** A call that records gradients or runs a training step (DJL). */
-  static boolean recordsGradients(ExpressionTypes types, ScopeSummaries summaries, MethodCallExpr call) {
-    Optional<ProjectIndex.ProjectMethod> pm = types.projectMethod(call);
+  static boolean recordsGradients(TypeTraits traits, ScopeSummaries summaries, MethodCallExpr call) {
+    Optional<ProjectIndex.ProjectMethod> pm = traits.projectMethod(call);
     if (pm.isPresent()) {
       HelperSummary s = summaries.of(pm.get().declaration());
       return s != null && s.recordsGradients();
     }
-    Optional<ApiMethod> m = types.apiMethod(call);
+    Optional<ApiMethod> m = traits.apiMethod(call);
     if (m.isEmpty()) {
       return false;
     }
@@ -404,9 +370,9 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
         || e == Effect.TRAIN && m.get().owner().startsWith("ai.djl.");
   }
 
-  private static boolean runsSameDiff(ExpressionTypes types, MethodCallExpr call) {
-    Optional<ApiMethod> m = types.apiMethod(call);
+  private static boolean runsSameDiff(TypeTraits traits, MethodCallExpr call) {
+    Optional<ApiMethod> m = traits.apiMethod(call);
     return m.isPresent() && (m.get().effect() == Effect.TRAIN || m.get().effect() == Effect.PREDICT)
-        && types.project().model().typeAttribute(m.get().owner(), "graph").map("samediff"::equals).orElse(false);
+        && traits.isSameDiff(m.get().owner());
   }
 }

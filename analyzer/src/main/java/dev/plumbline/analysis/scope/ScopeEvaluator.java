@@ -350,7 +350,7 @@ final class ScopeEvaluator {
       boolean cut = false;
       for (Node n = read; n != e && n != null && !cut; n = n.getParentNode().orElse(null)) {
         if (n.getParentNode().orElse(null) instanceof MethodCallExpr call && call.getScope().orElse(null) == n) {
-          Effect effect = a.types.apiMethod(call).map(ApiMethod::effect).orElse(null);
+          Effect effect = a.traits.apiMethod(call).map(ApiMethod::effect).orElse(null);
           cut = effect == Effect.DETACH || effect == Effect.TO_SCALAR || effect == Effect.LEAVE_MEMORY_SCOPE
               || effect == Effect.SHAPE_QUERY;
         }
@@ -383,11 +383,11 @@ final class ScopeEvaluator {
     Expression scope = call.getScope().orElse(null);
     TensorValue receiver = scope == null ? null : eval(scope);
     List<TensorValue> args = evalAll(call.getArguments());
-    Optional<ProjectIndex.ProjectMethod> pm = a.types.projectMethod(call);
+    Optional<ProjectIndex.ProjectMethod> pm = a.traits.projectMethod(call);
     if (pm.isPresent()) {
       return projectCall(call, pm.get(), args);
     }
-    Optional<ApiMethod> api = a.types.apiMethod(call);
+    Optional<ApiMethod> api = a.traits.apiMethod(call);
     if (api.isEmpty()) {
       handOff(args);
       return a.entered(call, a.types.typeOf(call));
@@ -794,7 +794,7 @@ final class ScopeEvaluator {
     if (sink == null || !(es.getExpression() instanceof MethodCallExpr call)) {
       return;
     }
-    Optional<ApiMethod> api = a.types.apiMethod(call);
+    Optional<ApiMethod> api = a.traits.apiMethod(call);
     if (api.isEmpty() || !a.returnsTracked(api.get()) || a.isSameDiff(api.get().owner())) {
       return;
     }
@@ -805,7 +805,7 @@ final class ScopeEvaluator {
       kind = m.effect() == Effect.DETACH ? DiscardKind.DETACH
           : m.effect() == Effect.LEAVE_MEMORY_SCOPE ? DiscardKind.LEAVE_SCOPE : DiscardKind.COPY;
     } else if (TensorOps.inPlace(m) && receiver instanceof MethodCallExpr inner
-        && a.types.apiMethod(inner).filter(TensorOps::returnsCopy).filter(a::returnsTracked).isPresent()) {
+        && a.traits.apiMethod(inner).filter(TensorOps::returnsCopy).filter(a::returnsTracked).isPresent()) {
       kind = DiscardKind.TEMPORARY;
     }
     if (kind != null) {

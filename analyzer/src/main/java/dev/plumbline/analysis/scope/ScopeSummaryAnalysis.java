@@ -62,7 +62,7 @@ public final class ScopeSummaryAnalysis implements ProjectAnalysis {
       ScopeSummaries summaries) {
     boolean records = false;
     for (MethodCallExpr call : m.findAll(MethodCallExpr.class, c -> Loops.within(c, m))) {
-      records |= ScopeAnalysis.recordsGradients(file.types(), summaries, call);
+      records |= ScopeAnalysis.recordsGradients(file.analysis(TypeTraits.KEY), summaries, call);
     }
     ScopeAnalysis probe = new ScopeAnalysis(file, g, ScopeAnalysis.EntryContext.NORMAL, summaries);
     TensorValue.Kind returns = probe.trackedKind(file.types().symbols().types().resolve(m.getType()));
