@@ -37,6 +37,15 @@ class EasyTrainUnclosedBatch {
     }
   }
 
+  void fitWithBatchAsResource(Trainer trainer, Dataset train) throws IOException, TranslateException {
+    for (Batch batch : trainer.iterateDataset(train)) { // clean: memory.scope-escape
+      try (batch) {
+        EasyTrain.trainBatch(trainer, batch);
+        trainer.step();
+      }
+    }
+  }
+
   private void trainAndRelease(Trainer trainer, Batch batch) {
     EasyTrain.trainBatch(trainer, batch);
     trainer.step();

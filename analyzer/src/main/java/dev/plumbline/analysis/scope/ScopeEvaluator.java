@@ -76,7 +76,11 @@ final class ScopeEvaluator {
       discardedResult(es);
       eval(es.getExpression());
     } else if (ast instanceof Expression e) {
-      eval(e);
+      TensorValue v = eval(e);
+      if (v != null && e.getParentNode().orElse(null) instanceof TryStmt t
+          && t.getResources().stream().anyMatch(r -> r == e)) {
+        closedAtEndOf(t, v); // try (batch) { ... } closes an existing resource
+      }
     } else if (ast instanceof ReturnStmt r) {
       if (r.getExpression().isPresent()) {
         TensorValue v = eval(r.getExpression().get());
@@ -244,8 +248,8 @@ final class ScopeEvaluator {
           init = a.entered(d, type);
         }
       }
-      if (resourceOf != null && init != null && init.isTensor()) {
-        release(init); // closed at the end of the try block
+      if (resourceOf != null && init != null) {
+        closedAtEndOf(resourceOf, init);
       }
       state = state.with(v, init);
     }
@@ -562,6 +566,17 @@ final class ScopeEvaluator {
       sink.add(new ScopeFacts.Opening(a.graph, s, Loops.enclosing(call)));
     }
     return TensorValue.handle(s);
+  }
+
+  /** A try-with-resources closes {@code resource} when its block ends. */
+  private void closedAtEndOf(TryStmt t, TensorValue resource) {
+    if (resource.isTensor()) {
+      release(resource);
+    } else if (sink != null && resource.kind() == Kind.SCOPE_HANDLE) {
+      for (Scope s : resource.scopes()) {
+        sink.closed(s, t);
+      }
+    }
   }
 
   private void close(MethodCallExpr call, TensorValue receiver) {
