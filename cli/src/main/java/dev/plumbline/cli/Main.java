@@ -36,8 +36,8 @@ public final class Main {
     cli.setOut(outWriter);
     cli.setErr(errWriter);
     cli.setParameterExceptionHandler((ex, a) -> {
-      errWriter.println("plumbline: " + ex.getMessage());
-      errWriter.println("Try 'plumbline " + subcommandName(ex.getCommandLine()) + "--help' for usage.");
+      errWriter.println("plumbline: " + ex.getMessage() + " (see 'plumbline "
+          + subcommandName(ex.getCommandLine()) + "--help')");
       return EXIT_USAGE;
     });
     cli.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {

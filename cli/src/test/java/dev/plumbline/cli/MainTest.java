@@ -45,6 +45,7 @@ class MainTest {
     Run r = run(dir, "scan", "--frobnicate", ".");
     assertEquals(2, r.code());
     assertTrue(r.err().startsWith("plumbline: Unknown option: '--frobnicate'"), r.err());
+    assertEquals(1, r.err().strip().lines().count(), "one line: " + r.err());
     assertFalse(r.err().contains("\tat "), "no stack trace");
   }
 
