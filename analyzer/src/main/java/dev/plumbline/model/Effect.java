@@ -97,6 +97,8 @@ public enum Effect {
   MIGRATE,
   /** Stores the argument {@code valueArg} in the receiver container (collection add, map put). */
   STORE,
+  /** Removes every value the receiver container holds. */
+  CLEAR,
 
   // configuration
   /** Configuration builder setter for a hyperparameter; attribute {@code hyperparameter}. */

@@ -36,6 +36,22 @@ class EasyTrainStyleLoop {
     return predictions;
   }
 
+  float epochScoringEachBatch(Trainer trainer, Dataset train) throws IOException, TranslateException {
+    List<NDArray> pending = new ArrayList<>();
+    float sum = 0f;
+    for (Batch batch : trainer.iterateDataset(train)) {
+      EasyTrain.trainBatch(trainer, batch);
+      trainer.step();
+      pending.add(trainer.evaluate(batch.getData()).singletonOrThrow()); // clean: memory.graph-accumulation
+      for (NDArray scores : pending) {
+        sum += scores.sum().getFloat();
+      }
+      pending.clear();
+      batch.close();
+    }
+    return sum;
+  }
+
   float epochReadingAccumulator(Trainer trainer, Dataset train) throws IOException, TranslateException {
     for (Batch batch : trainer.iterateDataset(train)) { // clean: memory.scope-escape
       EasyTrain.trainBatch(trainer, batch);

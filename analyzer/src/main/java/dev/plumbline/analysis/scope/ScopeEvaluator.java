@@ -766,7 +766,7 @@ final class ScopeEvaluator {
     }
     List<Statement> loops = new ArrayList<>();
     for (Statement loop : Loops.enclosing(at)) {
-      if (Loops.survives(holder, loop)) {
+      if (Loops.survives(holder, loop) && !(kind == StoreKind.COLLECT && emptiedEachIteration(holder, loop))) {
         loops.add(loop);
       }
     }
@@ -775,6 +775,22 @@ final class ScopeEvaluator {
     }
     sink.add(new ScopeFacts.Store(a.graph, at, kind, holder, valueExpr, operand, value, previous,
         List.copyOf(loops)));
+  }
+
+  /** Whether each iteration of {@code loop} may empty or replace the container {@code holder}. */
+  private boolean emptiedEachIteration(Variable holder, Statement loop) {
+    for (MethodCallExpr call : loop.findAll(MethodCallExpr.class, c -> Loops.perIteration(loop, c))) {
+      if (call.getScope().isPresent() && variableOf(call.getScope().get()) == holder
+          && a.traits.apiMethod(call).map(m -> m.effect() == Effect.CLEAR).orElse(false)) {
+        return true;
+      }
+    }
+    for (AssignExpr as : loop.findAll(AssignExpr.class, x -> Loops.perIteration(loop, x))) {
+      if (variableOf(as.getTarget()) == holder) {
+        return true;
+      }
+    }
+    return false;
   }
 
   private void keep(TensorValue v) {

@@ -2,6 +2,7 @@ package dev.plumbline.rules.memory;
 
 import com.github.javaparser.ast.Node;
 import com.github.javaparser.ast.stmt.Statement;
+import dev.plumbline.analysis.scope.Loops;
 import dev.plumbline.analysis.scope.Scope;
 import dev.plumbline.analysis.scope.ScopeAnalysis;
 import dev.plumbline.analysis.scope.ScopeFacts;
@@ -12,6 +13,7 @@ import dev.plumbline.engine.Rule;
 import dev.plumbline.engine.RuleDescriptor;
 import dev.plumbline.finding.Severity;
 import dev.plumbline.rules.Snippets;
+import java.util.Comparator;
 import java.util.List;
 
 /**
@@ -143,7 +145,7 @@ public final class GraphAccumulationRule implements Rule {
       }
     }
     if (store.holder().isField() && data.scopes().stream().allMatch(
-        s -> s.ownsMemory() && s.closedBy() != null && dev.plumbline.analysis.scope.Loops.within(store.at(), s.closedBy()))) {
+        s -> s.ownsMemory() && s.closedBy() != null && Loops.within(store.at(), s.closedBy()))) {
       return first(data);
     }
     return null;
@@ -151,7 +153,7 @@ public final class GraphAccumulationRule implements Rule {
 
   private static Scope first(TensorValue data) {
     return data.scopes().stream()
-        .min(java.util.Comparator.comparingInt((Scope s) -> s.site().getBegin().map(p -> p.line).orElse(0))
+        .min(Comparator.comparingInt((Scope s) -> s.site().getBegin().map(p -> p.line).orElse(0))
             .thenComparingInt(s -> s.site().getBegin().map(p -> p.column).orElse(0)))
         .orElseThrow();
   }
