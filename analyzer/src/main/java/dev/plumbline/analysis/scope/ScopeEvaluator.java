@@ -246,6 +246,12 @@ final class ScopeEvaluator {
           }
         } else {
           init = a.entered(d, type);
+          if (init != null && resourceOf == null && a.handleKind(type) == Scope.Kind.AUTOGRAD) {
+            // A collector records from its creation (Engine.newGradientCollector and the like).
+            for (Scope s : init.scopes()) {
+              state = state.opening(s);
+            }
+          }
         }
       }
       if (resourceOf != null && init != null) {

@@ -59,6 +59,24 @@ class ScopeAnalysisTest {
   }
 
   @Test
+  void aCollectorFromAnyCallRecordsUntilItIsClosed() {
+    ScopeFacts facts = ScopeHarness.facts(cls("""
+          void train(Trainer trainer, NDList x, NDList y, List<NDArray> kept, int n) {
+            for (int i = 0; i < n; i++) {
+              GradientCollector gc = ai.djl.engine.Engine.getInstance().newGradientCollector();
+              NDArray loss = trainer.getLoss().evaluate(y, trainer.forward(x));
+              gc.backward(loss);
+              gc.close();
+              kept.add(loss);
+              kept.add(trainer.getLoss().evaluate(y, trainer.forward(x)));
+            }
+          }"""));
+    assertEquals(2, facts.stores().size(), ScopeHarness.factsDump(facts));
+    assertTrue(facts.stores().get(0).data().certainlyAttached(), "computed while the collector was open");
+    assertFalse(facts.stores().get(1).data().mayBeAttached(), "computed after it was closed");
+  }
+
+  @Test
   void storesNameTheLoopsTheirHolderSurvives() {
     ScopeFacts facts = ScopeHarness.facts(cls("""
           void train(Trainer trainer, Dataset data) throws Exception {
