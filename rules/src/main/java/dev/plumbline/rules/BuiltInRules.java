@@ -6,12 +6,16 @@ import dev.plumbline.analysis.randomness.ProjectSeeding;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.Rule;
+import dev.plumbline.analysis.scope.ScopeSummaryAnalysis;
 import dev.plumbline.rules.leak.FitOnTestRule;
 import dev.plumbline.rules.leak.PreprocessingBeforeSplitRule;
 import dev.plumbline.rules.leak.TemporalShuffleRule;
 import dev.plumbline.rules.leak.TestInTuningRule;
+import dev.plumbline.rules.memory.GraphAccumulationRule;
+import dev.plumbline.rules.memory.ScopeEscapeRule;
 import dev.plumbline.rules.repro.UnseededRandomnessRule;
 import dev.plumbline.rules.suppression.InvalidSuppressionRule;
+import dev.plumbline.rules.tensor.DiscardedResultRule;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
@@ -36,7 +40,11 @@ public final class BuiltInRules {
         new FitOnTestRule(),
         new TestInTuningRule(),
         new TemporalShuffleRule(),
-        new UnseededRandomnessRule()));
+        new UnseededRandomnessRule(),
+        // ---- memory and tensor-result rules (scope analysis, issue 5)
+        new GraphAccumulationRule(),
+        new ScopeEscapeRule(),
+        new DiscardedResultRule()));
     // ---- the suppression check knows every rule id, its own included
     Set<String> ids = new TreeSet<>();
     rules.forEach(r -> ids.add(r.descriptor().id()));
@@ -57,7 +65,9 @@ public final class BuiltInRules {
         // ---- provenance (issue 3)
         new ProvenanceSummarizer(),
         new ConfigurationReach(),
-        new ProjectSeeding());
+        new ProjectSeeding(),
+        // ---- helper summaries for the scope analysis (issue 5)
+        new ScopeSummaryAnalysis());
   }
 
   public static MessageCatalog messages() {
