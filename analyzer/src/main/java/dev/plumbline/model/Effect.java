@@ -41,8 +41,6 @@ public enum Effect {
   SHUFFLE,
   /** Sets a random seed. */
   SEED,
-  /** Adds the rows of the data argument ({@code dataArg}) to the receiver collection. */
-  ADD_ROWS,
   /** The receiver (a record reader) reads its rows from the data argument ({@code dataArg}) from now on. */
   READ_FROM,
 
@@ -102,6 +100,31 @@ public enum Effect {
   BACKWARD,
   /** Releases native memory now. */
   CLOSE,
+
+  // memory scopes and containers (scope analysis)
+  /** Returns the memory scope that owns the receiver (DJL {@code NDArray.getManager()}, {@code Batch.getManager()}). */
+  SCOPE_OF,
+  /**
+   * Moves the receiver into the manager given as argument (DJL {@code attach}); with attribute
+   * {@code temporary=true} it returns to its own manager when that one closes ({@code tempAttach}).
+   */
+  MOVE_TO_SCOPE,
+  /** Takes the receiver out of its manager; the caller must close it (DJL {@code detach()}). */
+  RELEASE_FROM_SCOPE,
+  /**
+   * Returns a copy outside the current memory scope, leaving the receiver where it is (ND4J
+   * {@code detach()}, {@code leverageTo}); attribute {@code to}: heap, parent or named.
+   */
+  LEAVE_MEMORY_SCOPE,
+  /** Returns the array moved into the workspace open at the call (ND4J {@code migrate()}). */
+  MIGRATE,
+  /**
+   * Stores the argument {@code valueArg} in the receiver container (collection add, map put):
+   * the container keeps it alive (scope analysis) and holds its rows (provenance).
+   */
+  STORE,
+  /** Removes every value the receiver container holds. */
+  CLEAR,
 
   // configuration
   /** Configuration builder setter for a hyperparameter; attribute {@code hyperparameter}. */

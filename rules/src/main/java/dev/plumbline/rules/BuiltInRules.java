@@ -3,6 +3,7 @@ package dev.plumbline.rules;
 import dev.plumbline.analysis.loops.ConfigurationReach;
 import dev.plumbline.analysis.provenance.ProvenanceSummarizer;
 import dev.plumbline.analysis.randomness.ProjectSeeding;
+import dev.plumbline.analysis.scope.ScopeSummaryAnalysis;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.Rule;
@@ -11,12 +12,15 @@ import dev.plumbline.rules.leak.FitOnTestRule;
 import dev.plumbline.rules.leak.PreprocessingBeforeSplitRule;
 import dev.plumbline.rules.leak.TemporalShuffleRule;
 import dev.plumbline.rules.leak.TestInTuningRule;
+import dev.plumbline.rules.memory.GraphAccumulationRule;
+import dev.plumbline.rules.memory.ScopeEscapeRule;
 import dev.plumbline.rules.repro.UnseededRandomnessRule;
 import dev.plumbline.rules.shape.ImplicitBroadcastRule;
 import dev.plumbline.rules.shape.ReducedDimBroadcastRule;
 import dev.plumbline.rules.shape.ShapeMismatchRule;
 import dev.plumbline.rules.shape.UncheckedReshapeRule;
 import dev.plumbline.rules.suppression.InvalidSuppressionRule;
+import dev.plumbline.rules.tensor.DiscardedResultRule;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
@@ -42,6 +46,10 @@ public final class BuiltInRules {
         new TestInTuningRule(),
         new TemporalShuffleRule(),
         new UnseededRandomnessRule(),
+        // ---- memory and tensor-result rules (scope analysis, issue 5)
+        new GraphAccumulationRule(),
+        new ScopeEscapeRule(),
+        new DiscardedResultRule(),
         // ---- shape rules (issue 4)
         new ShapeMismatchRule(),
         new ImplicitBroadcastRule(),
@@ -68,7 +76,9 @@ public final class BuiltInRules {
         // ---- provenance (issue 3)
         new ProvenanceSummarizer(),
         new ConfigurationReach(),
-        new ProjectSeeding());
+        new ProjectSeeding(),
+        // ---- helper summaries for the scope analysis (issue 5)
+        new ScopeSummaryAnalysis());
   }
 
   public static MessageCatalog messages() {

@@ -34,19 +34,23 @@ class GoldenCorpusTest {
    * Least number of firing examples and of clean look-alikes per rule, from the issues that
    * introduced each rule. A rule missing here must have at least one of each.
    */
-  private static final Map<String, Integer> MINIMUM_CASES = Map.of(
+  private static final Map<String, Integer> MINIMUM_CASES = Map.ofEntries(
       // ---- provenance and loop roles (issue 3)
-      "leak.preprocessing-before-split", 8,
-      "leak.fit-on-test", 8,
-      "leak.test-in-tuning", 8,
-      "leak.temporal-shuffle", 8,
-      "repro.unseeded-randomness", 8,
+      Map.entry("leak.preprocessing-before-split", 8),
+      Map.entry("leak.fit-on-test", 8),
+      Map.entry("leak.test-in-tuning", 8),
+      Map.entry("leak.temporal-shuffle", 8),
+      Map.entry("repro.unseeded-randomness", 8),
+      // ---- memory and tensor-result rules (issue 5)
+      Map.entry("memory.graph-accumulation", 8),
+      Map.entry("memory.scope-escape", 8),
+      Map.entry("tensor.discarded-result", 8),
       // ---- shape rules (issue 4)
-      "shape.mismatch", 8,
-      "shape.implicit-broadcast", 8,
-      "shape.reduced-dim-broadcast", 8,
-      "shape.unchecked-reshape", 8,
-      "check.assert-validation", 8);
+      Map.entry("shape.mismatch", 8),
+      Map.entry("shape.implicit-broadcast", 8),
+      Map.entry("shape.reduced-dim-broadcast", 8),
+      Map.entry("shape.unchecked-reshape", 8),
+      Map.entry("check.assert-validation", 8));
 
   private static ScanResult result;
   private static List<Expectations.Mark> marks;

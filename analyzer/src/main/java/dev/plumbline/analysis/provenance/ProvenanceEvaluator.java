@@ -492,14 +492,16 @@ final class ProvenanceEvaluator {
       case WRAP -> {
         return joinData(args);
       }
-      case ADD_ROWS, READ_FROM -> {
-        int dataArg = m.intAttribute("dataArg", 0);
+      case STORE, READ_FROM -> {
+        // STORE: a container keeps the argument (its rows join the container's); READ_FROM: a
+        // reader reads the argument's rows from now on.
+        int dataArg = m.effect() == Effect.STORE ? m.intAttribute("valueArg", 0) : m.intAttribute("dataArg", 0);
         DataValue added = dataArg < args.size() ? args.get(dataArg) : null;
         Optional<Variable> target = call.getScope().flatMap(this::targetOf);
         if (target.isPresent() && added != null && added.kind() == DataValue.Kind.DATA) {
           DataValue old = state.get(target.get()).orElse(null);
           DataValue now;
-          if (m.effect() == Effect.ADD_ROWS) {
+          if (m.effect() == Effect.STORE) {
             now = old == null ? added : old.join(added);
           } else {
             // A reader takes its rows from the split, but a sequence reader still reads them in

@@ -665,9 +665,9 @@ final class ShapeEvaluator {
     return type != null && !type.endsWith("[]") && types.project().hasRole(type, TypeRole.TENSOR);
   }
 
-  /** Whether the type is a list of tensors (DJL {@code NDList}): model attribute {@code tensorList}. */
+  /** Whether the type is a list of tensors (DJL {@code NDList}): role {@code TENSOR_LIST}. */
   boolean isTensorList(String type) {
-    return analysis.context.model.typeAttribute(type, "tensorList").map("true"::equals).orElse(false);
+    return type != null && types.project().hasRole(type, TypeRole.TENSOR_LIST);
   }
 
   static boolean isIntegral(String type) {
