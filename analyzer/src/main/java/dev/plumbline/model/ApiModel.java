@@ -240,7 +240,10 @@ public final class ApiModel {
     List<ApiMethod> out = new ArrayList<>();
     for (String t : selfAndSupertypes(receiverType)) {
       for (ApiMethod m : methodsByOwner.getOrDefault(t, List.of())) {
-        if (m.name().equals(name) && m.acceptsArity(arity)) {
+        // A nearer declaration with the same parameters overrides this one (JLS 8.4.8.1),
+        // possibly with a narrower return type, as DL4J's layer builders' build() do.
+        boolean overridden = out.stream().anyMatch(n -> n.params().equals(m.params()) && n.isStatic() == m.isStatic());
+        if (m.name().equals(name) && m.acceptsArity(arity) && !overridden) {
           out.add(m);
         }
       }

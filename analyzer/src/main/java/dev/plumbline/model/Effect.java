@@ -12,7 +12,10 @@ public enum Effect {
   SPLIT_ARRAY,
   /** Returns one part of a split holder; attribute {@code part}: train, validation or test. */
   SPLIT_PART,
-  /** Returns data with the same rows (or a subset thereof) as the receiver: getters, copies, views. */
+  /**
+   * Returns data with the same rows (or a subset thereof) as the receiver: getters, copies,
+   * views. For tensor indexing, attribute {@code index}: row, column or leading (axes dropped).
+   */
   DERIVE,
   /** Constructor or factory wrapping its data arguments (iterators over lists, data sets from arrays). */
   WRAP,
@@ -42,21 +45,36 @@ public enum Effect {
   READ_FROM,
 
   // tensors
-  /** Creates a tensor; attribute {@code shape}: how the shape is given (varargs, shape-object, data). */
+  /**
+   * Creates a tensor; attribute {@code shape}: how the shape is given (varargs: one size per
+   * argument or one array, shape-object: a DJL {@code Shape}, data: the nesting of a data
+   * array), from argument {@code shapeArg} (default 0).
+   */
   CREATE,
+  /** Reshapes the receiver to the sizes from argument {@code shapeArg} (default 0); -1 is inferred. */
   RESHAPE,
+  /** Permutes the receiver's axes, given from argument {@code axesArg} (default 0). */
   PERMUTE,
+  /** Reverses the receiver's axes. */
   TRANSPOSE,
+  /** Matrix product of the receiver and the argument; attribute {@code product}: mmul, matmul or dot. */
   MATMUL,
   /**
    * Reduces along axes. Attribute {@code keepDims}: "true", "false", or "paramN" when the
-   * boolean parameter N says so; {@code statistic=true} for mean, deviation, min and max.
+   * boolean parameter N says so; {@code axesArg}: where the axes are (absent: over everything);
+   * {@code engineAxes=one} when an engine may refuse several axes; {@code statistic=true} for
+   * mean, deviation, min and max.
    */
   REDUCE,
   /** Element-wise binary operation; attribute {@code inPlace}. */
   ELEMENTWISE,
   /** Row- or column-vector broadcast operation; attributes {@code inPlace}, {@code vector}: row|column. */
   VECTOR_OP,
+  /**
+   * Joins tensors. Attributes: {@code inputs} (varargs from {@code inputsArg}, list: a DJL
+   * {@code NDList} argument, receiver: the receiver and the first argument), {@code axisArg} or a
+   * fixed {@code axis}, {@code stack=true} for a new axis, {@code join=hstack|vstack} for ND4J's.
+   */
   CONCAT,
   /** Returns a Java scalar detached from any graph or scope. */
   TO_SCALAR,
@@ -64,7 +82,10 @@ public enum Effect {
   DETACH,
   /** Returns a copy of the receiver. */
   COPY,
-  /** Reads a shape or one dimension of it. */
+  /**
+   * Reads a shape or one dimension of it; attribute {@code query}: shape, size (argument axis),
+   * dim (DJL {@code Shape.get}), rank, rows, columns, length, equals (DJL {@code Shape.equals}).
+   */
   SHAPE_QUERY,
 
   // scopes
@@ -110,6 +131,26 @@ public enum Effect {
   CONFIGURE,
   /** Early-stopping configuration taking a score calculator or data. */
   EARLY_STOPPING,
+  // shape inference and network configuration (issue 4)
+  /** Makes a shape object from sizes given as arguments (DJL {@code new Shape(long...)}). */
+  MAKE_SHAPE,
+  /** Throws unless its boolean argument holds (attribute {@code conditionArg}, default 0): preconditions. */
+  CHECK,
+  /** Compares two arrays element by element ({@code Arrays.equals}); used to learn shapes from checks. */
+  EQUALS,
+  /**
+   * Returns what a builder configures: a built layer or network configuration, or a network made
+   * from a configuration (constructor attribute {@code configArg}).
+   */
+  BUILD,
+  /**
+   * Adds a layer to a network configuration builder; attributes {@code layerArg}, and for graphs
+   * {@code nameArg} and {@code inputsArg} (the input names from there on), for lists {@code indexArg}.
+   */
+  ADD_LAYER,
+  /** Starts the layers of a network configuration ({@code list()}, or {@code graphBuilder()} with {@code graph=true}). */
+  LAYER_STACK,
+
   /** A call with no effect the analyses model; listed so the reflection check covers it. */
   NONE
 }

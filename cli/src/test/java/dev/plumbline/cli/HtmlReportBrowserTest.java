@@ -122,10 +122,11 @@ class HtmlReportBrowserTest {
 
     WebElement finding = driver.findElement(By.cssSelector("article.finding"));
     assertTrue(finding.isDisplayed());
-    assertEquals("1 of 1 findings shown", text("#shown-count"));
+    // The demo's two planted defects: the leak and the broadcast over the wrong totals, both errors.
+    assertEquals("2 of 2 findings shown", text("#shown-count"));
     driver.findElement(By.id("filter-severity-error")).click();
-    assertFalse(finding.isDisplayed(), "unchecking 'error' hides the error finding");
-    assertEquals("0 of 1 findings shown", text("#shown-count"));
+    assertFalse(finding.isDisplayed(), "unchecking 'error' hides the error findings");
+    assertEquals("0 of 2 findings shown", text("#shown-count"));
     screenshot("demo-report-filtered.png");
     driver.findElement(By.id("filter-reset")).click();
     assertTrue(finding.isDisplayed());

@@ -3,10 +3,11 @@ package dev.plumbline.rules;
 import dev.plumbline.analysis.loops.ConfigurationReach;
 import dev.plumbline.analysis.provenance.ProvenanceSummarizer;
 import dev.plumbline.analysis.randomness.ProjectSeeding;
+import dev.plumbline.analysis.scope.ScopeSummaryAnalysis;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.Rule;
-import dev.plumbline.analysis.scope.ScopeSummaryAnalysis;
+import dev.plumbline.rules.check.AssertValidationRule;
 import dev.plumbline.rules.leak.FitOnTestRule;
 import dev.plumbline.rules.leak.PreprocessingBeforeSplitRule;
 import dev.plumbline.rules.leak.TemporalShuffleRule;
@@ -14,6 +15,10 @@ import dev.plumbline.rules.leak.TestInTuningRule;
 import dev.plumbline.rules.memory.GraphAccumulationRule;
 import dev.plumbline.rules.memory.ScopeEscapeRule;
 import dev.plumbline.rules.repro.UnseededRandomnessRule;
+import dev.plumbline.rules.shape.ImplicitBroadcastRule;
+import dev.plumbline.rules.shape.ReducedDimBroadcastRule;
+import dev.plumbline.rules.shape.ShapeMismatchRule;
+import dev.plumbline.rules.shape.UncheckedReshapeRule;
 import dev.plumbline.rules.suppression.InvalidSuppressionRule;
 import dev.plumbline.rules.tensor.DiscardedResultRule;
 import java.util.ArrayList;
@@ -44,7 +49,13 @@ public final class BuiltInRules {
         // ---- memory and tensor-result rules (scope analysis, issue 5)
         new GraphAccumulationRule(),
         new ScopeEscapeRule(),
-        new DiscardedResultRule()));
+        new DiscardedResultRule(),
+        // ---- shape rules (issue 4)
+        new ShapeMismatchRule(),
+        new ImplicitBroadcastRule(),
+        new ReducedDimBroadcastRule(),
+        new UncheckedReshapeRule(),
+        new AssertValidationRule()));
     // ---- the suppression check knows every rule id, its own included
     Set<String> ids = new TreeSet<>();
     rules.forEach(r -> ids.add(r.descriptor().id()));

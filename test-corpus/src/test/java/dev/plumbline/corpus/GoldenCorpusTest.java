@@ -44,7 +44,13 @@ class GoldenCorpusTest {
       // ---- memory and tensor-result rules (issue 5)
       Map.entry("memory.graph-accumulation", 8),
       Map.entry("memory.scope-escape", 8),
-      Map.entry("tensor.discarded-result", 8));
+      Map.entry("tensor.discarded-result", 8),
+      // ---- shape rules (issue 4)
+      Map.entry("shape.mismatch", 8),
+      Map.entry("shape.implicit-broadcast", 8),
+      Map.entry("shape.reduced-dim-broadcast", 8),
+      Map.entry("shape.unchecked-reshape", 8),
+      Map.entry("check.assert-validation", 8));
 
   private static ScanResult result;
   private static List<Expectations.Mark> marks;
