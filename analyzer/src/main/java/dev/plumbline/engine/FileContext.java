@@ -30,14 +30,21 @@ public final class FileContext {
   private final ProjectIndex project;
   private final ProjectFacts projectFacts;
   private final ExpressionTypes types;
+  private final AnalysisSettings settings;
   private final Map<AnalysisKey<?>, Object> analyses = new HashMap<>();
   private List<ControlFlowGraph> graphs;
 
   public FileContext(ParsedSource source, ProjectIndex project, ProjectFacts projectFacts) {
+    this(source, project, projectFacts, AnalysisSettings.DEFAULTS);
+  }
+
+  public FileContext(ParsedSource source, ProjectIndex project, ProjectFacts projectFacts,
+      AnalysisSettings settings) {
     this.source = source;
+    this.settings = settings;
     this.project = project;
     this.projectFacts = projectFacts;
-    TypeResolver resolver = new TypeResolver(source.unit(), project.model());
+    TypeResolver resolver = new TypeResolver(source.unit(), project.model(), project::hasType);
     this.types = new ExpressionTypes(new SymbolTable(source.unit(), resolver), project);
   }
 
@@ -60,6 +67,11 @@ public final class FileContext {
   /** Project-wide facts computed before any file is analyzed (method summaries). */
   public ProjectFacts projectFacts() {
     return projectFacts;
+  }
+
+  /** The user's configuration as analyses may read it (test-data names, ...). */
+  public AnalysisSettings settings() {
+    return settings;
   }
 
   public ExpressionTypes types() {

@@ -29,7 +29,8 @@ public interface FindingReporter {
       List<Related> related,
       Message fixHint,
       Optional<Severity> severity,
-      Optional<Edit> fix) {
+      Optional<Edit> fix,
+      List<Message> involved) {
 
     /** A related place given as a node of the same file. */
     public record Related(Node node, Message message) {}
@@ -44,6 +45,7 @@ public interface FindingReporter {
       private Message fixHint;
       private Severity severity;
       private Edit fix;
+      private final List<Message> involved = new ArrayList<>();
 
       Builder(FindingReporter sink, RuleDescriptor rule, Node node) {
         this.sink = sink;
@@ -75,6 +77,16 @@ public interface FindingReporter {
         return this;
       }
 
+      /**
+       * What the analysis inferred about a value involved, for reports to show beside the
+       * message: key {@code involved.data-role} (expression, roles) or {@code involved.shape}
+       * (expression, shape), or another {@code involved.*} key of the bundle.
+       */
+      public Builder involves(String key, Object... args) {
+        involved.add(Message.of(key, args));
+        return this;
+      }
+
       public Builder edit(Edit e) {
         this.fix = e;
         return this;
@@ -86,7 +98,7 @@ public interface FindingReporter {
         }
         Message hint = fixHint != null ? fixHint : Message.of("rule." + rule.id() + ".fix");
         sink.report(new Report(rule, node, message, related, hint, Optional.ofNullable(severity),
-            Optional.ofNullable(fix)));
+            Optional.ofNullable(fix), List.copyOf(involved)));
       }
     }
   }

@@ -12,9 +12,10 @@ import java.util.List;
  * @param includes globs a file's report name must match (empty: all)
  * @param excludes globs that remove files
  * @param jobs worker threads for parsing and analysis, at least 1
+ * @param settings configuration the analyses may consult
  */
 public record ScanRequest(List<Path> paths, Path baseDirectory, List<String> includes,
-    List<String> excludes, int jobs) {
+    List<String> excludes, int jobs, AnalysisSettings settings) {
 
   public ScanRequest {
     paths = List.copyOf(paths);
@@ -23,6 +24,13 @@ public record ScanRequest(List<Path> paths, Path baseDirectory, List<String> inc
     if (jobs < 1) {
       throw new IllegalArgumentException("jobs must be at least 1: " + jobs);
     }
+    settings = settings == null ? AnalysisSettings.DEFAULTS : settings;
+  }
+
+  /** A request with default analysis settings. */
+  public ScanRequest(List<Path> paths, Path baseDirectory, List<String> includes,
+      List<String> excludes, int jobs) {
+    this(paths, baseDirectory, includes, excludes, jobs, AnalysisSettings.DEFAULTS);
   }
 
   public static ScanRequest of(Path base, List<Path> paths) {
@@ -30,6 +38,6 @@ public record ScanRequest(List<Path> paths, Path baseDirectory, List<String> inc
   }
 
   public ScanRequest withJobs(int n) {
-    return new ScanRequest(paths, baseDirectory, includes, excludes, n);
+    return new ScanRequest(paths, baseDirectory, includes, excludes, n, settings);
   }
 }

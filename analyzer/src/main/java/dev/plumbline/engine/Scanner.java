@@ -1,6 +1,10 @@
 package dev.plumbline.engine;
 
 import com.github.javaparser.ast.CompilationUnit;
+import dev.plumbline.analysis.entrypoints.CallableSummary;
+import dev.plumbline.analysis.entrypoints.EntryPointAnalysis;
+import dev.plumbline.analysis.entrypoints.TrainingEntryPoint;
+import dev.plumbline.analysis.rowcount.RowCountSummaries;
 import dev.plumbline.discover.Discovery;
 import dev.plumbline.finding.Finding;
 import dev.plumbline.finding.Location;
@@ -10,6 +14,7 @@ import dev.plumbline.finding.RelatedLocation;
 import dev.plumbline.finding.Severity;
 import dev.plumbline.finding.SourceRange;
 import dev.plumbline.model.ApiModel;
+import dev.plumbline.parse.NotebookLayout;
 import dev.plumbline.parse.ParsedSource;
 import dev.plumbline.parse.SourceParser;
 import dev.plumbline.types.ProjectIndex;
@@ -49,6 +54,7 @@ public final class Scanner {
   private final List<Rule> rules;
   private final List<ProjectAnalysis> projectAnalyses;
   private final ScanListener listener;
+  private final boolean audit;
 
   /** Progress callbacks (for a progress display); calls may come from several threads. */
   public interface ScanListener {
@@ -61,12 +67,27 @@ public final class Scanner {
 
   public Scanner(ApiModel model, List<Rule> rules, List<ProjectAnalysis> projectAnalyses,
       ScanListener listener) {
+    this(model, rules, projectAnalyses, listener, false);
+  }
+
+  private Scanner(ApiModel model, List<Rule> rules, List<ProjectAnalysis> projectAnalyses,
+      ScanListener listener, boolean audit) {
     this.model = model;
     this.rules = rules.stream()
         .sorted(Comparator.comparing(r -> r.descriptor().id()))
         .toList();
     this.projectAnalyses = List.copyOf(projectAnalyses);
     this.listener = listener;
+    this.audit = audit;
+  }
+
+  /**
+   * The same scan, also finding training entry points and their evaluations (with row counts)
+   * for the audit report: {@link ScanResult#entryPoints()}. Costs a summary pass over the
+   * project's methods and a walk of each file's calls.
+   */
+  public Scanner withAudit() {
+    return new Scanner(model, rules, projectAnalyses, listener, true);
   }
 
   public Scanner(ApiModel model, List<Rule> rules) {
@@ -85,7 +106,7 @@ public final class Scanner {
 
   private ScanResult run(ScanRequest request) {
     Discovery discovery = new Discovery(new Discovery.Options(request.baseDirectory(),
-        request.includes(), request.excludes(), false));
+        request.includes(), request.excludes(), true));
     Discovery.Result found = discovery.discover(request.paths());
     listener.discovered(found.files().size());
     List<Notification> notes = new ArrayList<>(found.notifications());
@@ -104,41 +125,56 @@ public final class Scanner {
       List<CompilationUnit> units = parsed.stream().map(ParsedSource::unit).toList();
       ProjectIndex index = ProjectIndex.build(model, units);
       ProjectFacts facts = new ProjectFacts();
-      runProjectAnalyses(pool, parsed, index, facts, notes);
+      List<ProjectAnalysis> analyses = new ArrayList<>(projectAnalyses);
+      if (audit) {
+        analyses.add(new RowCountSummaries());
+      }
+      runProjectAnalyses(pool, analyses, parsed, index, facts, request, notes);
       // Fresh contexts per file for rules: project analyses may have filled the first ones.
       List<FileOutcome> perFile = parallel(pool, parsed,
-          p -> checkFile(new FileContext(p, index, facts)),
+          p -> checkFile(new FileContext(p, index, facts, request.settings())),
           (p, e) -> new FileOutcome(List.of(), List.of(fileFailure("notification.file-analysis-failed",
-              p.file().uri(), describe(e))), lineCount(p.text())));
+              p.file().uri(), describe(e))), List.of(), lineCount(p.text())));
       List<Finding> findings = new ArrayList<>();
+      List<CallableSummary> callables = new ArrayList<>();
       Map<String, String> sources = new TreeMap<>();
+      Map<String, NotebookLayout> notebooks = new TreeMap<>();
       long lines = 0;
       for (int i = 0; i < parsed.size(); i++) {
         FileOutcome fo = perFile.get(i);
+        ParsedSource source = parsed.get(i);
         findings.addAll(fo.findings());
         notes.addAll(fo.notifications());
+        callables.addAll(fo.callables());
+        if (source.lineMap() instanceof NotebookLayout layout) {
+          notebooks.put(source.file().uri(), layout);
+        }
         if (!fo.findings().isEmpty()) {
-          sources.put(parsed.get(i).file().uri(), parsed.get(i).text());
+          sources.put(source.file().uri(), source.lineMap() instanceof NotebookLayout layout
+              ? layout.reportedText() : source.text());
         }
         lines += fo.lines();
       }
       findings.sort(Finding.ORDER);
       notes.sort(Notification.ORDER);
+      List<TrainingEntryPoint> entryPoints = audit ? EntryPointAnalysis.link(callables) : List.of();
       return new ScanResult(findings, notes, rules.stream().map(Rule::descriptor).toList(),
-          found.files().size(), parsed.size(), lines, sources);
+          found.files().size(), parsed.size(), lines, sources, notebooks, entryPoints);
     } finally {
       pool.shutdownNow();
     }
   }
 
-  private void runProjectAnalyses(ExecutorService pool, List<ParsedSource> parsed, ProjectIndex index,
-      ProjectFacts facts, List<Notification> notes) {
-    if (projectAnalyses.isEmpty()) {
+  private void runProjectAnalyses(ExecutorService pool, List<ProjectAnalysis> analyses,
+      List<ParsedSource> parsed, ProjectIndex index, ProjectFacts facts, ScanRequest request,
+      List<Notification> notes) {
+    if (analyses.isEmpty()) {
       return;
     }
-    List<FileContext> contexts = parallel(pool, parsed, p -> new FileContext(p, index, facts), (p, e) -> null)
+    List<FileContext> contexts = parallel(pool, parsed,
+        p -> new FileContext(p, index, facts, request.settings()), (p, e) -> null)
         .stream().filter(Objects::nonNull).toList();
-    for (ProjectAnalysis pa : projectAnalyses) {
+    for (ProjectAnalysis pa : analyses) {
       try {
         pa.compute(contexts, index, facts);
       } catch (RuntimeException | Error e) {
@@ -148,7 +184,8 @@ public final class Scanner {
     }
   }
 
-  private record FileOutcome(List<Finding> findings, List<Notification> notifications, long lines) {}
+  private record FileOutcome(List<Finding> findings, List<Notification> notifications,
+      List<CallableSummary> callables, long lines) {}
 
   /**
    * Runs every rule on one file. A rule that throws (or whose analysis throws) loses its own
@@ -169,8 +206,19 @@ public final class Scanner {
             Optional.of(new Location(file.uri(), new SourceRange(1, 1, 1, 1))), true));
       }
     }
+    List<CallableSummary> callables = List.of();
+    if (audit) {
+      try {
+        callables = EntryPointAnalysis.summarize(file);
+      } catch (RuntimeException | StackOverflowError e) {
+        notes.add(new Notification(Severity.WARNING,
+            Message.of("notification.audit-failed", file.uri(), describe(e)),
+            Optional.of(new Location(file.uri(), new dev.plumbline.finding.SourceRange(1, 1, 1, 1))),
+            false));
+      }
+    }
     listener.fileDone(file.uri());
-    return new FileOutcome(findings, notes, lineCount(file.source().text()));
+    return new FileOutcome(findings, notes, callables, lineCount(file.source().text()));
   }
 
   private static long lineCount(String text) {
@@ -207,7 +255,7 @@ public final class Scanner {
           .toList();
       out.add(new Finding(r.rule().id(), r.severity().orElse(r.rule().defaultSeverity()),
           file.locationOf(r.node()), r.message(), related, r.fixHint(), r.fix(),
-          fingerprints.next(r.rule().id(), file.uri(), r.node()), Optional.empty()));
+          fingerprints.next(r.rule().id(), file.uri(), r.node()), Optional.empty(), r.involved()));
     }
     return out;
   }

@@ -16,6 +16,8 @@ import java.util.Optional;
  * @param fix an exact edit, when the repair is mechanical
  * @param fingerprint stable across unrelated edits above the finding; see {@code Fingerprints}
  * @param suppression the justification when a suppression matched, else empty
+ * @param involved what the analyses inferred about the values involved (data roles, shapes),
+ *     as bundle messages, for reports that show them
  */
 public record Finding(
     String ruleId,
@@ -26,7 +28,8 @@ public record Finding(
     Message fixHint,
     Optional<Edit> fix,
     String fingerprint,
-    Optional<String> suppression) {
+    Optional<String> suppression,
+    List<Message> involved) {
 
   /** Report order: file, position, rule, then message arguments; total and deterministic. */
   public static final Comparator<Finding> ORDER = Comparator
@@ -38,6 +41,14 @@ public record Finding(
 
   public Finding {
     related = List.copyOf(related);
+    involved = List.copyOf(involved);
+  }
+
+  /** A finding with nothing inferred to show about the values involved. */
+  public Finding(String ruleId, Severity severity, Location location, Message message,
+      List<RelatedLocation> related, Message fixHint, Optional<Edit> fix, String fingerprint,
+      Optional<String> suppression) {
+    this(ruleId, severity, location, message, related, fixHint, fix, fingerprint, suppression, List.of());
   }
 
   public boolean isSuppressed() {
@@ -45,11 +56,12 @@ public record Finding(
   }
 
   public Finding withSeverity(Severity s) {
-    return new Finding(ruleId, s, location, message, related, fixHint, fix, fingerprint, suppression);
+    return new Finding(ruleId, s, location, message, related, fixHint, fix, fingerprint, suppression,
+        involved);
   }
 
   public Finding withSuppression(String justification) {
     return new Finding(ruleId, severity, location, message, related, fixHint, fix, fingerprint,
-        Optional.of(justification));
+        Optional.of(justification), involved);
   }
 }

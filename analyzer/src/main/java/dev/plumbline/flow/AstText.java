@@ -8,12 +8,24 @@ import com.github.javaparser.ast.stmt.IfStmt;
 import com.github.javaparser.ast.stmt.SwitchStmt;
 import com.github.javaparser.ast.stmt.TryStmt;
 import com.github.javaparser.ast.stmt.WhileStmt;
+import com.github.javaparser.printer.configuration.DefaultConfigurationOption;
+import com.github.javaparser.printer.configuration.DefaultPrinterConfiguration;
 
 /** Short one-line renderings of AST elements for dumps and messages. */
 public final class AstText {
   private static final int MAX = 60;
 
   private AstText() {}
+
+  /**
+   * The code of a node on one line, without comments: a trailing line comment is attached to the
+   * next node by the parser and would otherwise end up inside message arguments.
+   */
+  public static String code(Node node) {
+    DefaultPrinterConfiguration noComments = new DefaultPrinterConfiguration();
+    noComments.removeOption(new DefaultConfigurationOption(DefaultPrinterConfiguration.ConfigOption.PRINT_COMMENTS));
+    return node.toString(noComments).replaceAll("\\s+", " ").trim();
+  }
 
   public static String abbreviate(Node node) {
     String text;

@@ -252,7 +252,10 @@ public final class ApiModel {
     List<ApiMethod> out = new ArrayList<>();
     for (String t : selfAndSupertypes(receiverType)) {
       for (ApiMethod m : methodsByOwner.getOrDefault(t, List.of())) {
-        if (m.name().equals(name) && m.acceptsArity(arity)) {
+        // A nearer declaration with the same parameters overrides this one (JLS 8.4.8.1),
+        // possibly with a narrower return type, as DL4J's layer builders' build() do.
+        boolean overridden = out.stream().anyMatch(n -> n.params().equals(m.params()) && n.isStatic() == m.isStatic());
+        if (m.name().equals(name) && m.acceptsArity(arity) && !overridden) {
           out.add(m);
         }
       }
@@ -334,6 +337,9 @@ public final class ApiModel {
     if (from.equals(to) || to.equals("java.lang.Object")) {
       return true;
     }
+    if (from.endsWith("[]") || to.endsWith("[]")) {
+      return arrayAssignable(from, to);
+    }
     int f = WIDENING.indexOf(from);
     int t = WIDENING.indexOf(to);
     if (f >= 0 && t >= 0) {
@@ -353,6 +359,27 @@ public final class ApiModel {
       return isSubtype(from, to) || !types.containsKey(to);
     }
     return true; // an unlisted class type: we cannot tell, so do not exclude the overload
+  }
+
+  /**
+   * JLS 5.2 for arrays: an array goes to {@code Object}, {@code Cloneable} or
+   * {@code Serializable}, or to an array of the same depth whose element type it can be assigned
+   * to by reference; arrays of primitives only to the identical type.
+   */
+  private boolean arrayAssignable(String from, String to) {
+    if (!from.endsWith("[]")) {
+      return false;
+    }
+    if (!to.endsWith("[]")) {
+      return to.equals("java.lang.Cloneable") || to.equals("java.io.Serializable");
+    }
+    String fromElement = from.substring(0, from.length() - 2);
+    String toElement = to.substring(0, to.length() - 2);
+    if (WIDENING.contains(fromElement) || WIDENING.contains(toElement)
+        || fromElement.equals("boolean") || toElement.equals("boolean")) {
+      return fromElement.equals(toElement);
+    }
+    return assignable(fromElement, toElement);
   }
 
   private static String boxed(String primitive) {

@@ -25,5 +25,13 @@ public enum TypeRole {
   /** A network or training configuration builder. */
   CONFIG_BUILDER,
   /** A source of random numbers. */
-  RANDOM
+  RANDOM,
+
+  // scope analysis
+  /** A list of tensors that is itself a native resource (DJL {@code NDList}). */
+  TENSOR_LIST,
+  /** A Java collection or map that can keep values alive (java.util). */
+  CONTAINER,
+  /** A resource that owns a memory scope of its own and releases it on close (DJL {@code Batch}). */
+  SCOPED_RESOURCE
 }

@@ -62,7 +62,39 @@ public final class SourceParser {
     if (decoded.hadInvalidBytes()) {
       notes.add(fileNote(file, Severity.WARNING, "notification.invalid-utf8", false, file.uri()));
     }
+    if (file.isNotebook()) {
+      return parseNotebook(file, decoded.text(), notes);
+    }
     return parseText(file, decoded.text(), LineMap.IDENTITY, notes);
+  }
+
+  /**
+   * A Java notebook becomes one synthetic unit whose lines map back to the notebook file (see
+   * {@link NotebookSource}). A notebook of another language is skipped with a note; a file that
+   * is not a notebook at all is a problem of the run.
+   */
+  public Outcome parseNotebook(SourceFile file, String json, List<Notification> notes) {
+    List<Notification> out = new ArrayList<>(notes);
+    NotebookReader.Notebook notebook;
+    try {
+      notebook = NotebookReader.read(json);
+    } catch (IOException | RuntimeException e) {
+      out.add(fileNote(file, Severity.ERROR, "notification.notebook-unreadable", true, file.uri(),
+          firstLine(String.valueOf(e.getMessage()))));
+      return new Outcome(Optional.empty(), out);
+    }
+    if (notebook.formatMajor() < 4) {
+      out.add(fileNote(file, Severity.WARNING, "notification.notebook-old-format", true, file.uri(),
+          String.valueOf(notebook.formatMajor())));
+      return new Outcome(Optional.empty(), out);
+    }
+    if (!notebook.isJava()) {
+      out.add(fileNote(file, Severity.NOTE, "notification.notebook-not-java", false, file.uri(),
+          notebook.language().isEmpty() ? "unknown" : notebook.language()));
+      return new Outcome(Optional.empty(), out);
+    }
+    NotebookSource.Built built = NotebookSource.build(file.uri(), notebook);
+    return parseText(file, built.text(), built.layout(), out);
   }
 
   /** Parses text already in memory (tests, notebooks). */
@@ -91,6 +123,7 @@ public final class SourceParser {
     }
     CompilationUnit unit = result.getResult().get();
     dropTokens(unit);
+    unit.setData(LineMap.KEY, lines);
     return new Outcome(Optional.of(new ParsedSource(file, text, unit, lines)), out);
   }
 

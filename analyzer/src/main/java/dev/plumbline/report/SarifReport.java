@@ -29,6 +29,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import dev.plumbline.engine.MessageCatalog;
 import dev.plumbline.engine.RuleDescriptor;
+import dev.plumbline.engine.ScanResult;
 import dev.plumbline.finding.Edit;
 import dev.plumbline.finding.Finding;
 import dev.plumbline.finding.Notification;
@@ -87,7 +88,12 @@ public final class SarifReport {
       if (results.size() >= MAX_RESULTS) {
         break;
       }
-      results.add(result(f, ruleIndex.getOrDefault(f.ruleId(), -1), messages));
+      Result r = result(f, ruleIndex.getOrDefault(f.ruleId(), -1), messages, ctx.result());
+      if (ctx.baseline().isPresent()) {
+        // Known findings were removed; everything left is new relative to the baseline.
+        r.withBaselineState(Result.BaselineState.NEW);
+      }
+      results.add(r);
     }
     List<com.contrastsecurity.sarif.Notification> notes = new ArrayList<>();
     for (Notification n : ctx.result().notifications()) {
@@ -116,10 +122,26 @@ public final class SarifReport {
         .withColumnKind(Run.ColumnKind.UTF_16_CODE_UNITS)
         .withInvocations(List.of(invocation))
         .withResults(results);
+    if (ctx.baseline().isPresent()) {
+      run.withProperties(runProperties(ctx));
+    }
     return new SarifSchema210()
         .with$schema(URI.create(SCHEMA_URI))
         .withVersion(SarifSchema210.Version._2_1_0)
         .withRuns(List.of(run));
+  }
+
+  /** Baseline counts, so a reader of the log knows how many accepted findings were left out. */
+  private static PropertyBag runProperties(ReportContext ctx) {
+    PropertyBag props = new PropertyBag();
+    ctx.baseline().ifPresent(b -> {
+      Map<String, Object> baseline = new java.util.LinkedHashMap<>();
+      baseline.put("file", b.file());
+      baseline.put("known", b.known());
+      baseline.put("stale", b.stale());
+      props.setAdditionalProperty("plumbline/baseline", baseline);
+    });
+    return props;
   }
 
   private static String baseUri(ReportContext ctx) {
@@ -162,11 +184,11 @@ public final class SarifReport {
     return sb.toString();
   }
 
-  private static Result result(Finding f, int index, MessageCatalog m) {
+  private static Result result(Finding f, int index, MessageCatalog m, ScanResult scan) {
     Set<Location> related = new LinkedHashSet<>();
     int id = 1;
     for (RelatedLocation r : f.related()) {
-      related.add(location(r.location()).withId(id++).withMessage(text(m.render(r.message()))));
+      related.add(location(r.location(), scan).withId(id++).withMessage(text(m.render(r.message()))));
     }
     PartialFingerprints fp = new PartialFingerprints();
     fp.setAdditionalProperty(FINGERPRINT_KEY, f.fingerprint());
@@ -174,11 +196,14 @@ public final class SarifReport {
     props.setAdditionalProperty("messageKey", f.message().key());
     props.setAdditionalProperty("arguments", f.message().arguments());
     props.setAdditionalProperty("fixHint", m.render(f.fixHint()));
+    if (!f.involved().isEmpty()) {
+      props.setAdditionalProperty("involved", f.involved().stream().map(m::render).toList());
+    }
     Result result = new Result()
         .withRuleId(f.ruleId())
         .withLevel(Result.Level.fromValue(f.severity().sarifLevel()))
         .withMessage(text(m.render(f.message())))
-        .withLocations(List.of(location(f.location())))
+        .withLocations(List.of(location(f.location(), scan)))
         .withRelatedLocations(related)
         .withPartialFingerprints(fp)
         .withProperties(props);
@@ -197,7 +222,11 @@ public final class SarifReport {
     List<Replacement> replacements = new ArrayList<>();
     for (Edit.Replacement r : edit.replacements()) {
       replacements.add(new Replacement()
-          .withDeletedRegion(region(r.range()))
+          .withDeletedRegion(new Region()
+              .withStartLine(r.startLine())
+              .withStartColumn(r.startColumn())
+              .withEndLine(r.endLine())
+              .withEndColumn(r.endColumn()))
           .withInsertedContent(new ArtifactContent().withText(r.text())));
     }
     PropertyBag props = new PropertyBag();
@@ -223,6 +252,22 @@ public final class SarifReport {
     return new Location().withPhysicalLocation(new PhysicalLocation()
         .withArtifactLocation(artifact(l.uri()))
         .withRegion(region(l.range())));
+  }
+
+  /**
+   * A location; in a notebook, the region's lines are lines of the notebook file and its
+   * columns count within the code line, and the properties {@code notebookCell} and
+   * {@code notebookCellLine} say which cell and which line of it.
+   */
+  private static Location location(dev.plumbline.finding.Location l, ScanResult scan) {
+    Location out = location(l);
+    scan.cellOf(l).ifPresent(cell -> {
+      PropertyBag props = new PropertyBag();
+      props.setAdditionalProperty("notebookCell", cell.cell());
+      props.setAdditionalProperty("notebookCellLine", cell.line());
+      out.withProperties(props);
+    });
+    return out;
   }
 
   private static ArtifactLocation artifact(String uri) {

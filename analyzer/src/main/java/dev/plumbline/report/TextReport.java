@@ -16,7 +16,8 @@ import java.util.Optional;
  *   path:line:col: note: related place
  *   fix: hint
  * </pre>
- * Suppressed findings are not printed; they are counted in the summary.
+ * Suppressed findings are not printed; they are counted in the summary. In a notebook the line
+ * is the notebook file's line and a further line names the cell and the line within it.
  */
 public final class TextReport {
   private TextReport() {}
@@ -40,8 +41,12 @@ public final class TextReport {
         out.println("    " + line.get());
         out.println("    " + Excerpts.caret(line.get(), f.location().range()));
       }
+      ctx.result().cellOf(f.location()).ifPresent(c ->
+          out.println("  in notebook cell " + c.cell() + ", line " + c.line()));
       for (RelatedLocation r : f.related()) {
-        out.println("  " + r.location().display() + ": note: " + ctx.messages().render(r.message()));
+        String cell = ctx.result().cellOf(r.location())
+            .map(c -> " (cell " + c.cell() + ", line " + c.line() + ")").orElse("");
+        out.println("  " + r.location().display() + ": note: " + ctx.messages().render(r.message()) + cell);
       }
       out.println("  fix: " + ctx.messages().render(f.fixHint()));
       out.println();
@@ -59,6 +64,13 @@ public final class TextReport {
     if (suppressed > 0) {
       summary.append(", ").append(suppressed).append(" suppressed");
     }
+    ctx.baseline().ifPresent(b -> {
+      summary.append(", ").append(b.known()).append(" known from ").append(b.file());
+      if (b.stale() > 0) {
+        summary.append(" (").append(b.stale()).append(b.stale() == 1 ? " entry" : " entries")
+            .append(" no longer found)");
+      }
+    });
     summary.append(" in ").append(ctx.result().filesAnalyzed()).append(" of ")
         .append(ctx.result().filesDiscovered()).append(" files");
     if (ctx.result().incomplete()) {

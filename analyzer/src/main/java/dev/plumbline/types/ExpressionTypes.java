@@ -195,7 +195,8 @@ public final class ExpressionTypes {
   /** Type named by a scope expression used as a type ({@code Nd4j} in {@code Nd4j.create()}). */
   public String typeReference(Expression scope) {
     if (scope instanceof NameExpr n && symbols.resolve(n).isEmpty()) {
-      return symbols.types().resolveName(n.getNameAsString());
+      String resolved = symbols.types().resolveName(n.getNameAsString());
+      return resolved != null ? resolved : samePackageType(n);
     }
     if (scope instanceof FieldAccessExpr fa && looksQualified(fa)) {
       String written = dottedName(fa);
@@ -211,6 +212,17 @@ public final class ExpressionTypes {
       return dottedName(f.getScope()) + "." + f.getNameAsString();
     }
     return ((NameExpr) e).getNameAsString();
+  }
+
+  /**
+   * A project type of the unit's own package, which Java makes visible without an import
+   * (JLS 6.4.1, 7.4.1): {@code Layers.flatten(x)} with {@code Layers} declared in another file.
+   */
+  private String samePackageType(NameExpr n) {
+    String pkg = n.findCompilationUnit().flatMap(u -> u.getPackageDeclaration())
+        .map(p -> p.getNameAsString() + ".").orElse("");
+    String candidate = pkg + n.getNameAsString();
+    return project.type(candidate).isPresent() ? candidate : null;
   }
 
   private static boolean looksQualified(FieldAccessExpr fa) {

@@ -66,7 +66,9 @@ public final class ProjectIndex {
   /** {@link #selfAndSupertypes} of every project type, computed once: it is asked for on every call. */
   private final Map<String, List<String>> supertypeClosures;
 
-  private ProjectIndex(ApiModel model, Map<String, ProjectType> types) {
+  private final Set<String> typeNames;
+
+  private ProjectIndex(ApiModel model, Map<String, ProjectType> types, Set<String> typeNames) {
     this.model = model;
     this.types = types;
     Map<String, List<String>> closures = new HashMap<>();
@@ -74,12 +76,25 @@ public final class ProjectIndex {
       closures.put(name, List.copyOf(computeSelfAndSupertypes(name)));
     }
     this.supertypeClosures = Map.copyOf(closures);
+    this.typeNames = typeNames;
+  }
+
+  /** Qualified names of all types the project declares (for resolving names across files). */
+  public Set<String> typeNames() {
+    return typeNames;
   }
 
   public static ProjectIndex build(ApiModel model, Collection<CompilationUnit> units) {
+    Set<String> names = new HashSet<>();
+    for (CompilationUnit unit : units) {
+      for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
+        type.getFullyQualifiedName().ifPresent(names::add);
+      }
+    }
+    Set<String> typeNames = Set.copyOf(names);
     Map<String, ProjectType> types = new LinkedHashMap<>();
     for (CompilationUnit unit : units) {
-      TypeResolver resolver = new TypeResolver(unit, model);
+      TypeResolver resolver = new TypeResolver(unit, model, typeNames::contains);
       for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
         Optional<String> qualified = type.getFullyQualifiedName();
         if (qualified.isEmpty() || types.containsKey(qualified.get())) {
@@ -114,16 +129,21 @@ public final class ProjectIndex {
             List.copyOf(methods)));
       }
     }
-    return new ProjectIndex(model, Map.copyOf(types));
+    return new ProjectIndex(model, Map.copyOf(types), typeNames);
   }
 
   /** An index with no project types, for analyzing a lone snippet. */
   public static ProjectIndex empty(ApiModel model) {
-    return new ProjectIndex(model, Map.of());
+    return new ProjectIndex(model, Map.of(), Set.of());
   }
 
   public ApiModel model() {
     return model;
+  }
+
+  /** Whether the project declares a type of this qualified name. */
+  public boolean hasType(String name) {
+    return types.containsKey(name);
   }
 
   public Optional<ProjectType> type(String name) {

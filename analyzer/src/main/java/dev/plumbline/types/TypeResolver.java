@@ -13,6 +13,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import java.util.function.Predicate;
 
 /**
  * Resolves type names written in one compilation unit to qualified names, from its imports,
@@ -21,7 +22,8 @@ import java.util.Set;
  * <p>Errs towards "unknown": a simple name that could mean two listed types (two on-demand
  * imports both providing it) resolves to null rather than to a guess. Generic arguments are
  * erased. Names of the project's own types resolve to their qualified name when declared in
- * this unit or imported by name.
+ * this unit, imported by name, declared in the same package, or imported on demand from a
+ * project package (when the resolver is given the project's type names).
  */
 public final class TypeResolver {
   private static final Set<String> PRIMITIVES =
@@ -32,9 +34,22 @@ public final class TypeResolver {
   private final Map<String, String> singleImports = new HashMap<>();
   private final List<String> onDemandPackages = new ArrayList<>();
   private final Map<String, String> localTypes = new HashMap<>();
+  private final Predicate<String> projectTypes;
 
   public TypeResolver(CompilationUnit unit, ApiModel model) {
+    this(unit, model, name -> false);
+  }
+
+  /**
+   * A resolver that also knows the project's own types, so that a type of the same package
+   * declared in another file, or one from a package imported on demand, resolves (JLS 6.4.1:
+   * single-type imports, then types of this file, then of the package, then on-demand imports).
+   *
+   * @param projectTypes whether the project declares a type of this qualified name
+   */
+  public TypeResolver(CompilationUnit unit, ApiModel model, Predicate<String> projectTypes) {
     this.model = model;
+    this.projectTypes = projectTypes;
     this.packageName = unit.getPackageDeclaration().map(p -> p.getNameAsString()).orElse("");
     for (ImportDeclaration imp : unit.getImports()) {
       if (imp.isStatic()) {
@@ -97,6 +112,22 @@ public final class TypeResolver {
     String local = localTypes.get(simple);
     if (local != null) {
       return local;
+    }
+    String samePackage = packageName.isEmpty() ? simple : packageName + "." + simple;
+    if (projectTypes.test(samePackage)) {
+      return samePackage;
+    }
+    String onDemand = null;
+    for (String pkg : onDemandPackages) {
+      if (projectTypes.test(pkg + "." + simple)) {
+        if (onDemand != null) {
+          return null; // ambiguous between two imported packages
+        }
+        onDemand = pkg + "." + simple;
+      }
+    }
+    if (onDemand != null) {
+      return onDemand;
     }
     String found = null;
     for (ApiType t : model.typesWithSimpleName(simple)) {

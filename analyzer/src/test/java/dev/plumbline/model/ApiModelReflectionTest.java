@@ -22,8 +22,9 @@ import org.junit.jupiter.api.Test;
 
 /**
  * Checks every type and method of the API model against the real library jars on the test
- * classpath (org.nd4j:nd4j-api, org.deeplearning4j:deeplearning4j-nn, org.datavec:datavec-api
- * 1.0.0-M2.1; ai.djl:api 0.36.0) by reflection: each type exists and has its listed supertypes,
+ * classpath (org.nd4j:nd4j-api, org.deeplearning4j:deeplearning4j-nn,
+ * org.deeplearning4j:deeplearning4j-datavec-iterators, org.datavec:datavec-api 1.0.0-M2.1;
+ * ai.djl:api and ai.djl:basicdataset 0.36.0) by reflection: each type exists and has its listed supertypes,
  * and each method exists with the stated static-ness, parameter types and return type, after
  * resolving the type variables the owner binds (so {@code DataNormalization.fit(DataSet)},
  * declared generically in a superinterface, is found as the real API has it).

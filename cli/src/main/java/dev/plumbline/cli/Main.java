@@ -27,26 +27,48 @@ public final class Main {
   private Main() {}
 
   public static void main(String[] args) {
-    int code = run(args, System.out, System.err, Path.of("").toAbsolutePath());
+    int code = run(args, System.out, System.err, Path.of("").toAbsolutePath(), stderrIsTerminal());
     System.exit(code);
   }
 
+  /** Whether standard error is a terminal, asked through jline; false when it cannot tell. */
+  private static boolean stderrIsTerminal() {
+    try {
+      return org.jline.terminal.spi.TerminalProvider.load("exec")
+          .isSystemStream(org.jline.terminal.spi.SystemStream.Error);
+    } catch (java.io.IOException | RuntimeException | LinkageError e) {
+      return false;
+    }
+  }
+
   public static int run(String[] args, PrintStream out, PrintStream err, Path workingDirectory) {
-    return run(args, out, err, workingDirectory, BuiltInRules.all());
+    return run(args, out, err, workingDirectory, false);
+  }
+
+  /** @param errIsTerminal whether {@code err} is a terminal (a progress bar instead of lines) */
+  public static int run(String[] args, PrintStream out, PrintStream err, Path workingDirectory,
+      boolean errIsTerminal) {
+    return run(args, out, err, workingDirectory, errIsTerminal, BuiltInRules.all());
   }
 
   /** As {@link #run(String[], PrintStream, PrintStream, Path)} with a given rule set (tests). */
   static int run(String[] args, PrintStream out, PrintStream err, Path workingDirectory,
       List<Rule> rules) {
+    return run(args, out, err, workingDirectory, false, rules);
+  }
+
+  private static int run(String[] args, PrintStream out, PrintStream err, Path workingDirectory,
+      boolean errIsTerminal, List<Rule> rules) {
     PrintWriter outWriter = new PrintWriter(new java.io.OutputStreamWriter(out, StandardCharsets.UTF_8), true);
     PrintWriter errWriter = new PrintWriter(new java.io.OutputStreamWriter(err, StandardCharsets.UTF_8), true);
-    Environment env = new Environment(out, outWriter, errWriter, workingDirectory, List.copyOf(rules));
+    Environment env = new Environment(out, outWriter, err, errWriter, workingDirectory, errIsTerminal,
+        List.copyOf(rules));
     CommandLine cli = new CommandLine(new PlumblineCommand(), new CommandFactory(env));
     cli.setOut(outWriter);
     cli.setErr(errWriter);
     cli.setParameterExceptionHandler((ex, a) -> {
-      errWriter.println("plumbline: " + ex.getMessage());
-      errWriter.println("Try 'plumbline " + subcommandName(ex.getCommandLine()) + "--help' for usage.");
+      errWriter.println("plumbline: " + ex.getMessage() + " (see 'plumbline "
+          + subcommandName(ex.getCommandLine()) + "--help')");
       return EXIT_USAGE;
     });
     cli.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
@@ -77,8 +99,8 @@ public final class Main {
   }
 
   /** Injected streams, working directory and the rules a scan runs, shared by the subcommands. */
-  record Environment(PrintStream rawOut, PrintWriter out, PrintWriter err, Path workingDirectory,
-      List<Rule> rules) {}
+  record Environment(PrintStream rawOut, PrintWriter out, PrintStream rawErr, PrintWriter err,
+      Path workingDirectory, boolean errIsTerminal, List<Rule> rules) {}
 
   /** Creates subcommands with the environment injected. */
   private record CommandFactory(Environment env) implements CommandLine.IFactory {

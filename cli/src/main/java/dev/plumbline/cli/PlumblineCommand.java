@@ -11,7 +11,8 @@ import picocli.CommandLine.Command;
     mixinStandardHelpOptions = true,
     versionProvider = PlumblineCommand.Version.class,
     description = "Finds defects in deep-learning training code without running it.",
-    subcommands = {ScanCommand.class, RulesCommand.class, ExplainCommand.class},
+    subcommands = {ScanCommand.class, BaselineCommand.class, FixCommand.class, RulesCommand.class,
+        ExplainCommand.class},
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {
         "0:nothing at or above the fail level",
@@ -24,7 +25,7 @@ final class PlumblineCommand implements Runnable {
 
   @Override
   public void run() {
-    throw new CommandLine.ParameterException(spec.commandLine(), "a subcommand is required: scan, rules or explain");
+    throw new CommandLine.ParameterException(spec.commandLine(), "a subcommand is required: scan, baseline, fix, rules or explain");
   }
 
   static String version() {

@@ -1,15 +1,15 @@
 package dev.plumbline.cli;
 
-import dev.plumbline.engine.MessageCatalog;
-import dev.plumbline.engine.ScanRequest;
-import dev.plumbline.engine.ScanResult;
 import dev.plumbline.engine.Scanner;
-import dev.plumbline.finding.Finding;
-import dev.plumbline.finding.Severity;
+import dev.plumbline.gate.ConfigException;
+import dev.plumbline.gate.FailLevel;
+import dev.plumbline.gate.QualityGate;
 import dev.plumbline.model.ApiModel;
+import dev.plumbline.report.HtmlReport;
 import dev.plumbline.report.ReportContext;
 import dev.plumbline.report.SarifReport;
 import dev.plumbline.report.TextReport;
+import dev.plumbline.engine.Rule;
 import dev.plumbline.rules.BuiltInRules;
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -18,39 +18,35 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
 
-/** {@code plumbline scan PATH...}: analyze and report. */
+/** {@code plumbline scan PATH...}: analyze, apply the gate's stages, report. */
 @Command(name = "scan", mixinStandardHelpOptions = true,
     description = "Scan Java sources for defects in training code.")
 final class ScanCommand implements Callable<Integer> {
 
-  enum Format { text, sarif }
+  enum Format { text, sarif, html }
 
-  enum FailLevel {
-    error(Severity.ERROR), warning(Severity.WARNING), note(Severity.NOTE), none(null);
+  /** The fail levels as the command line spells them. */
+  enum FailOn {
+    error(FailLevel.ERROR), warning(FailLevel.WARNING), note(FailLevel.NOTE), none(FailLevel.NONE);
 
-    final Severity threshold;
+    final FailLevel level;
 
-    FailLevel(Severity threshold) {
-      this.threshold = threshold;
+    FailOn(FailLevel level) {
+      this.level = level;
     }
   }
 
-  /** Validated options of one scan; immutable. */
-  record Options(List<Path> paths, Format format, Optional<Path> output, FailLevel failOn,
-      int jobs, List<String> includes, List<String> excludes) {}
-
   private final Main.Environment env;
 
-  @Parameters(paramLabel = "PATH", arity = "1..*", description = "Files or folders to scan.")
-  List<String> paths = new ArrayList<>();
+  @Mixin
+  GateOptions gate = new GateOptions();
 
   @Option(names = "--format", paramLabel = "FORMAT", defaultValue = "text",
       description = "Output format: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
@@ -59,18 +55,14 @@ final class ScanCommand implements Callable<Integer> {
   @Option(names = "--output", paramLabel = "FILE", description = "Write the report here instead of standard output.")
   String output;
 
-  @Option(names = "--fail-on", paramLabel = "LEVEL", defaultValue = "warning",
-      description = "Exit 1 when a finding is at or above: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
-  FailLevel failOn;
+  @Option(names = "--fail-on", paramLabel = "LEVEL",
+      description = "Exit 1 when a finding is at or above: ${COMPLETION-CANDIDATES} "
+          + "(default: the configuration's, else warning).")
+  FailOn failOn;
 
-  @Option(names = "--jobs", paramLabel = "N", description = "Worker threads (default: number of cores).")
-  Integer jobs;
-
-  @Option(names = "--include", paramLabel = "GLOB", description = "Only scan files whose path matches (repeatable).")
-  List<String> includes = new ArrayList<>();
-
-  @Option(names = "--exclude", paramLabel = "GLOB", description = "Skip files whose path matches (repeatable).")
-  List<String> excludes = new ArrayList<>();
+  @Option(names = "--baseline", paramLabel = "FILE",
+      description = "Report only findings not recorded in this baseline (see 'plumbline baseline').")
+  String baseline;
 
   ScanCommand(Main.Environment env) {
     this.env = env;
@@ -78,62 +70,67 @@ final class ScanCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    Options options = validate();
-    Scanner scanner = new Scanner(ApiModel.loadDefault(), env.rules(),
-        BuiltInRules.projectAnalyses(), Scanner.ScanListener.NONE);
-    ScanResult result = scanner.scan(new ScanRequest(options.paths(), env.workingDirectory(),
-        options.includes(), options.excludes(), options.jobs()));
-    MessageCatalog messages = BuiltInRules.messages();
-    ReportContext ctx = new ReportContext(result, messages, env.workingDirectory(), PlumblineCommand.version());
-    String report = render(ctx, options.format());
-    if (options.output().isPresent()) {
-      writeAtomically(options.output().get(), report);
-      env.err().println("plumbline: wrote " + options.output().get() + " (" + countActive(result)
-          + " findings in " + result.filesAnalyzed() + " files)");
+    QualityGate.Options options = gate.validate(env.workingDirectory(), Optional.ofNullable(baseline),
+        Optional.ofNullable(failOn).map(f -> f.level));
+    Optional<Path> out = outputPath(env.workingDirectory(), output);
+    QualityGate.Outcome outcome;
+    try (ScanProgress progress = new ScanProgress(env.errIsTerminal(), env.rawErr(), env.err(),
+        () -> System.nanoTime() / 1_000_000)) {
+      // The HTML report needs training entry points and test-set sizes for its verdicts.
+      outcome = run(options, progress, format == Format.html, env.rules());
+    }
+    ReportContext ctx = new ReportContext(outcome.result(), BuiltInRules.messages(),
+        env.workingDirectory(), PlumblineCommand.version(), outcome.baseline());
+    String report = render(ctx, format);
+    if (out.isPresent()) {
+      writeAtomically(out.get(), report);
+      long active = outcome.result().findings().stream().filter(f -> !f.isSuppressed()).count();
+      env.err().println("plumbline: wrote " + out.get() + " (" + active + " findings in "
+          + outcome.result().filesAnalyzed() + " files)");
     } else {
       env.out().print(report);
       env.out().flush();
     }
-    return exitCode(result, options.failOn());
+    return exitCode(outcome);
   }
 
-  private Options validate() {
-    List<Path> resolved = new ArrayList<>();
-    for (String p : paths) {
-      Path path = env.workingDirectory().resolve(p).normalize();
-      if (!Files.exists(path)) {
-        throw new Main.UsageError("path not found: " + p);
-      }
-      resolved.add(path);
+  /** Runs the gate with the built-in rules; a bad configuration or baseline is a usage error. */
+  static QualityGate.Outcome run(QualityGate.Options options) {
+    return run(options, Scanner.ScanListener.NONE, false);
+  }
+
+  static QualityGate.Outcome run(QualityGate.Options options, Scanner.ScanListener listener,
+      boolean audit) {
+    return run(options, listener, audit, BuiltInRules.all());
+  }
+
+  /** As above with a given rule set (the environment's: tests plant failing rules there). */
+  static QualityGate.Outcome run(QualityGate.Options options, Scanner.ScanListener listener,
+      boolean audit, List<Rule> rules) {
+    QualityGate gate = new QualityGate(ApiModel.loadDefault(), rules,
+        BuiltInRules.projectAnalyses(), listener);
+    if (audit) {
+      gate = gate.withAudit();
     }
-    int n = jobs == null ? Runtime.getRuntime().availableProcessors() : jobs;
-    if (n < 1 || n > 256) {
-      throw new Main.UsageError("--jobs must be between 1 and 256, got " + n);
+    try {
+      return gate.run(options);
+    } catch (ConfigException e) {
+      throw new Main.UsageError(e.getMessage());
     }
-    Optional<Path> out = Optional.ofNullable(output).map(o -> env.workingDirectory().resolve(o).normalize());
+  }
+
+  static Optional<Path> outputPath(Path cwd, String output) {
+    Optional<Path> out = Optional.ofNullable(output).map(o -> cwd.resolve(o).normalize());
     if (out.isPresent() && Files.isDirectory(out.get())) {
       throw new Main.UsageError("--output names a folder, not a file: " + output);
     }
-    for (String glob : concat(includes, excludes)) {
-      try {
-        java.nio.file.FileSystems.getDefault().getPathMatcher("glob:" + glob);
-      } catch (IllegalArgumentException e) {
-        throw new Main.UsageError("bad glob '" + glob + "': " + e.getMessage());
-      }
-    }
-    return new Options(List.copyOf(resolved), format, out, failOn, n, List.copyOf(includes),
-        List.copyOf(excludes));
-  }
-
-  private static List<String> concat(List<String> a, List<String> b) {
-    List<String> all = new ArrayList<>(a);
-    all.addAll(b);
-    return all;
+    return out;
   }
 
   static String render(ReportContext ctx, Format format) {
     return switch (format) {
       case sarif -> SarifReport.render(ctx);
+      case html -> HtmlReport.render(ctx);
       case text -> {
         StringWriter sw = new StringWriter();
         TextReport.write(ctx, new PrintWriter(sw));
@@ -142,27 +139,16 @@ final class ScanCommand implements Callable<Integer> {
     };
   }
 
-  private static long countActive(ScanResult result) {
-    return result.findings().stream().filter(f -> !f.isSuppressed()).count();
-  }
-
-  static int exitCode(ScanResult result, FailLevel failOn) {
-    if (result.incomplete()) {
-      return Main.EXIT_INCOMPLETE;
-    }
-    if (failOn.threshold == null) {
-      return Main.EXIT_OK;
-    }
-    for (Finding f : result.findings()) {
-      if (!f.isSuppressed() && f.severity().atLeast(failOn.threshold)) {
-        return Main.EXIT_FINDINGS;
-      }
-    }
-    return Main.EXIT_OK;
+  static int exitCode(QualityGate.Outcome outcome) {
+    return switch (outcome.verdict()) {
+      case INCOMPLETE -> Main.EXIT_INCOMPLETE;
+      case FINDINGS_AT_FAIL_LEVEL -> Main.EXIT_FINDINGS;
+      case PASS -> Main.EXIT_OK;
+    };
   }
 
   /** Writes through a temporary file in the same folder so a failed write never leaves half a report. */
-  private static void writeAtomically(Path target, String content) {
+  static void writeAtomically(Path target, String content) {
     try {
       Path dir = target.toAbsolutePath().getParent();
       if (dir != null) {

@@ -45,6 +45,7 @@ class MainTest {
     Run r = run(dir, "scan", "--frobnicate", ".");
     assertEquals(2, r.code());
     assertTrue(r.err().startsWith("plumbline: Unknown option: '--frobnicate'"), r.err());
+    assertEquals(1, r.err().strip().lines().count(), "one line: " + r.err());
     assertFalse(r.err().contains("\tat "), "no stack trace");
   }
 
@@ -108,5 +109,20 @@ class MainTest {
     Run unknown = run(dir, "explain", "leak.nothing-like-this");
     assertEquals(2, unknown.code());
     assertTrue(unknown.err().contains("unknown rule"));
+  }
+
+  @Test
+  void htmlReportIsOneSelfContainedPage(@TempDir Path dir) throws IOException {
+    Files.writeString(dir.resolve("Leaky.java"), LEAKY);
+    Run r = run(dir, "scan", ".", "--format", "html", "--output", "audit.html");
+    assertEquals(1, r.code(), r.err());
+    String html = Files.readString(dir.resolve("audit.html"));
+    assertTrue(html.startsWith("<!DOCTYPE html>"));
+    assertTrue(html.contains("id=\"limits\""), "limits stated");
+    assertTrue(html.contains("leak.preprocessing-before-split"));
+    for (String external : new String[] {"<link", "src=\"http", "href=\"http", "@import", "url("}) {
+      assertFalse(html.contains(external), "fetches nothing: " + external);
+    }
+    assertTrue(html.contains("Content-Security-Policy"), "only its own inline blocks may run");
   }
 }

@@ -49,6 +49,11 @@ class RuleTextsTest {
           bad.add(key);
         }
       }
+      try {
+        new java.text.MessageFormat(p.getProperty(key), java.util.Locale.ROOT);
+      } catch (IllegalArgumentException e) {
+        bad.add(key + " (not a valid MessageFormat pattern: " + e.getMessage() + ")");
+      }
       if (p.getProperty(key).contains("'") && !p.getProperty(key).contains("''")) {
         bad.add(key + " (single quote must be doubled for MessageFormat)");
       }

@@ -29,6 +29,12 @@ public final class Lineage {
     return site;
   }
 
+  /** Whether the data entered through a field: the same rows in every method of the class. */
+  public boolean isField() {
+    return site instanceof com.github.javaparser.ast.body.VariableDeclarator d
+        && d.getParentNode().orElse(null) instanceof com.github.javaparser.ast.body.FieldDeclaration;
+  }
+
   /** How the code names the data there, e.g. {@code allRows} or {@code loader.load()}. */
   public String label() {
     return label;

@@ -8,5 +8,11 @@ public enum Role {
   VALIDATION,
   TEST,
   /** A held-out part whose purpose (validation or test) the code does not say. */
-  HELD_OUT
+  HELD_OUT,
+  /**
+   * Only while summarizing a project method: whatever rows the caller's argument holds. Replaced
+   * by the argument's own roles when the summary is applied at a call site; never published in
+   * facts that rules read.
+   */
+  ARGUMENT
 }

@@ -44,12 +44,14 @@ public final class PreprocessingBeforeSplitRule implements Rule {
       ProvenanceFacts.Split split = splits.get(0);
       boolean certain = fit.data().onlyWhole();
       reporter.at(this, fit.call())
-          .message(certain ? ID : ID + ".possible", Snippets.of(fit.preprocessor()),
+          .message(certain ? ID : ID + ".possible", fit.preprocessorName(),
               Snippets.of(fit.argument()), Snippets.of(split.splitData()), Snippets.line(split.call()))
           .related(split.call(), "related.split-here", Snippets.of(split.splitData()))
-          .related(entry(fit.data(), split), "related.data-enters", Snippets.of(fit.argument()))
-          .fix(ID + ".fix.fit-on-train", Snippets.of(fit.preprocessor()))
+          .related(entry(file, fit.data(), split), "related.data-enters", Snippets.of(fit.argument()))
+          .fix(ID + ".fix.fit-on-train", fit.preprocessorName())
+          .involves("involved.data-role", Snippets.of(fit.argument()), Snippets.roles(fit.data().roles()))
           .severity(certain ? Severity.ERROR : Severity.WARNING)
+          .edit(FitOnTrainingPart.plan(file, facts, fit, splits).orElse(null))
           .emit();
     }
     for (ProvenanceFacts.StatisticUse use : facts.statisticUses()) {
@@ -70,15 +72,20 @@ public final class PreprocessingBeforeSplitRule implements Rule {
           .related(split.call(), "related.split-here", Snippets.of(split.splitData()))
           .related(use.use(), "related.statistic-used", use.call().getNameAsString())
           .fix(ID + ".fix.statistic-on-train", use.call().getNameAsString())
+          .involves("involved.data-role", Snippets.of(use.over()), Snippets.roles(over.roles()))
           .severity(certain ? Severity.ERROR : Severity.WARNING)
           .emit();
     }
   }
 
-  /** Where the split lineage entered the method, when it is a different place from the split. */
-  private static Node entry(DataValue data, ProvenanceFacts.Split split) {
+  /**
+   * Where the split lineage entered the method, when it is a different place from the split and
+   * in this file (a helper in another file may return rows of its own class's field).
+   */
+  private static Node entry(FileContext file, DataValue data, ProvenanceFacts.Split split) {
     return data.lineages().stream()
         .filter(l -> split.data().lineages().contains(l))
+        .filter(l -> Evidence.inFile(file, l.site()))
         .sorted(Lineage.BY_POSITION)
         .map(Lineage::site)
         .findFirst()

@@ -1,0 +1,136 @@
+package dev.plumbline.analysis.loops;
+
+import com.github.javaparser.ast.Node;
+import com.github.javaparser.ast.body.CallableDeclaration;
+import com.github.javaparser.ast.body.Parameter;
+import com.github.javaparser.ast.body.TypeDeclaration;
+import com.github.javaparser.ast.expr.Expression;
+import com.github.javaparser.ast.expr.MethodCallExpr;
+import com.github.javaparser.ast.expr.ObjectCreationExpr;
+import dev.plumbline.engine.FileContext;
+import dev.plumbline.engine.ProjectAnalysis;
+import dev.plumbline.engine.ProjectFacts;
+import dev.plumbline.flow.ControlFlowGraph;
+import dev.plumbline.model.ApiMethod;
+import dev.plumbline.model.Effect;
+import dev.plumbline.types.ExpressionTypes;
+import dev.plumbline.types.ProjectIndex;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.IdentityHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import java.util.TreeSet;
+
+/**
+ * Which parameters of each project method reach a training configuration: an argument of a
+ * configuration setter ({@code Effect.CONFIGURE}: learning rate, layer size, updater, batch size)
+ * or of a project method whose parameter does. Lets a hyperparameter loop that calls
+ * {@code buildNetwork(rate)} be recognized. Transitive through at most {@value #ROUNDS} levels of
+ * helpers; deterministic (files in sorted order, methods in source order).
+ */
+public final class ConfigurationReach implements ProjectAnalysis {
+  static final int ROUNDS = 4;
+
+  /** Parameter indices reaching a configuration, by method declaration (identity). */
+  public static final class Parameters {
+    private final Map<Node, Set<Integer>> byMethod = new IdentityHashMap<>();
+
+    public Set<Integer> of(Node declaration) {
+      return byMethod.getOrDefault(declaration, Set.of());
+    }
+  }
+
+  @Override
+  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out) {
+    Parameters result = new Parameters();
+    out.put(Parameters.class, result);
+    List<FileContext> owners = new ArrayList<>();
+    List<CallableDeclaration<?>> methods = new ArrayList<>();
+    for (FileContext file : files) {
+      for (ControlFlowGraph g : file.graphs()) {
+        if (g.callable() instanceof CallableDeclaration<?> c
+            && c.getParentNode().orElse(null) instanceof TypeDeclaration<?>) {
+          owners.add(file);
+          methods.add(c);
+        }
+      }
+    }
+    for (int round = 0; round < ROUNDS; round++) {
+      boolean changed = false;
+      for (int i = 0; i < methods.size(); i++) {
+        CallableDeclaration<?> m = methods.get(i);
+        Set<Integer> reach = new TreeSet<>(result.of(m));
+        List<Parameter> params = m.getParameters();
+        for (int p = 0; p < params.size(); p++) {
+          if (!reach.contains(p) && reaches(owners.get(i), m, params.get(p), result)) {
+            reach.add(p);
+          }
+        }
+        if (!reach.equals(result.of(m))) {
+          result.byMethod.put(m, Collections.unmodifiableSet(reach));
+          changed = true;
+        }
+      }
+      if (!changed) {
+        break;
+      }
+    }
+  }
+
+  private static boolean reaches(FileContext file, CallableDeclaration<?> m, Parameter p,
+      Parameters known) {
+    Influence influence = new Influence(file.types().symbols())
+        .seed(file.types().symbols().variableOf(p))
+        .spreadThrough(m);
+    return !configurationPoints(file.types(), m, influence, known).isEmpty();
+  }
+
+  /**
+   * Calls and constructions in {@code body} where a value the influence carries becomes part of
+   * a training configuration, in source order.
+   */
+  static List<Node> configurationPoints(ExpressionTypes types, Node body, Influence influence,
+      Parameters known) {
+    List<Node> out = new ArrayList<>();
+    for (Node n : body.findAll(Node.class, x -> x instanceof MethodCallExpr || x instanceof ObjectCreationExpr)) {
+      List<Expression> args;
+      Optional<ApiMethod> api;
+      if (n instanceof MethodCallExpr call) {
+        args = call.getArguments();
+        Optional<ProjectIndex.ProjectMethod> pm = types.projectMethod(call);
+        if (pm.isPresent() && known != null) {
+          for (int i : known.of(pm.get().declaration())) {
+            if (i < args.size() && influence.mentions(args.get(i))) {
+              out.add(n);
+              break;
+            }
+          }
+          continue;
+        }
+        api = types.apiMethod(call);
+      } else {
+        ObjectCreationExpr oce = (ObjectCreationExpr) n;
+        args = oce.getArguments();
+        api = types.apiConstructor(oce);
+      }
+      if (api.isEmpty()) {
+        continue;
+      }
+      ApiMethod m = api.get();
+      if (m.effect() == Effect.CONFIGURE) {
+        if (args.stream().anyMatch(influence::mentions)) {
+          out.add(n);
+        }
+      } else if (m.attribute("batchArg") != null) {
+        int b = m.intAttribute("batchArg", 0);
+        if (b < args.size() && influence.mentions(args.get(b))) {
+          out.add(n);
+        }
+      }
+    }
+    return out;
+  }
+}

@@ -1,0 +1,415 @@
+package dev.plumbline.analysis.provenance;
+
+import com.github.javaparser.ast.Node;
+import com.github.javaparser.ast.body.CallableDeclaration;
+import com.github.javaparser.ast.body.FieldDeclaration;
+import com.github.javaparser.ast.body.TypeDeclaration;
+import com.github.javaparser.ast.body.VariableDeclarator;
+import com.github.javaparser.ast.expr.MethodCallExpr;
+import dev.plumbline.engine.FileContext;
+import dev.plumbline.engine.ProjectAnalysis;
+import dev.plumbline.engine.ProjectFacts;
+import dev.plumbline.flow.ControlFlowGraph;
+import dev.plumbline.types.ProjectIndex;
+import java.util.ArrayDeque;
+import java.util.ArrayList;
+import java.util.Deque;
+import java.util.EnumSet;
+import java.util.IdentityHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import java.util.TreeSet;
+
+/**
+ * Computes {@link ProvenanceSummaries} for the whole project before files are checked: for each
+ * project method, what it does with the rows of each parameter (fits a preprocessor on them,
+ * splits, trains on, evaluates on, shuffles them) and which rows it returns; for each field,
+ * which rows it may hold.
+ *
+ * <p>Method summaries are computed bottom-up over the strongly connected components of the call
+ * graph (callees first), by running {@link ProvenanceAnalysis} in {@link ProvenanceAnalysis.Mode#SUMMARY}
+ * mode. A recursive component is iterated at most {@value #ROUNDS_PER_COMPONENT} times; if it has
+ * not settled by then its last summaries stand (they may miss uses, which only makes the rules say
+ * less). Field summaries depend on method summaries and the other way round, so after a pass the
+ * methods that read a field whose summary changed (or call a method whose summary changed) are
+ * summarized again, until field summaries settle, at most {@value #FIELD_ROUNDS} passes. Deterministic:
+ * methods are visited in the files' sorted order and source order within a file.
+ */
+public final class ProvenanceSummarizer implements ProjectAnalysis {
+  static final int ROUNDS_PER_COMPONENT = 4;
+  static final int FIELD_ROUNDS = 3;
+
+  /** A project method to summarize; identity equality (declarations compare structurally). */
+  private static final class Method {
+    private final FileContext file;
+    private final CallableDeclaration<?> declaration;
+    private final ControlFlowGraph graph;
+    private final int order;
+
+    Method(FileContext file, CallableDeclaration<?> declaration, ControlFlowGraph graph, int order) {
+      this.file = file;
+      this.declaration = declaration;
+      this.graph = graph;
+      this.order = order;
+    }
+
+    FileContext file() {
+      return file;
+    }
+
+    CallableDeclaration<?> declaration() {
+      return declaration;
+    }
+
+    ControlFlowGraph graph() {
+      return graph;
+    }
+  }
+
+  @Override
+  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out) {
+    ProvenanceSummaries summaries = new ProvenanceSummaries();
+    out.put(ProvenanceSummaries.class, summaries);
+    List<Method> methods = methods(files);
+    CallGraph callGraph = new CallGraph(methods);
+    List<List<Method>> components = callGraph.componentsCalleesFirst();
+    Map<Node, List<ProvenanceFacts.FieldWrite>> writes = new IdentityHashMap<>();
+    Set<String> changedFields = null; // null: first round, summarize everything
+    for (int round = 0; round < FIELD_ROUNDS; round++) {
+      Set<Method> changedMethods = java.util.Collections.newSetFromMap(new IdentityHashMap<>());
+      for (List<Method> component : components) {
+        if (changedFields != null && !affected(component, changedFields, changedMethods, callGraph)) {
+          continue; // reads no field that changed and calls nothing that changed: same summary
+        }
+        for (Method m : component) {
+          if (summaries.method(m.declaration()) == null) {
+            summaries.put(m.declaration(), ProvenanceSummaries.MethodSummary.PENDING);
+          }
+        }
+        for (int i = 0; i < ROUNDS_PER_COMPONENT; i++) {
+          boolean changed = false;
+          for (Method m : component) {
+            if (summarize(m, summaries, writes)) {
+              changed = true;
+              changedMethods.add(m);
+            }
+          }
+          if (!changed || component.size() == 1 && !calls(component.get(0), component.get(0))) {
+            break;
+          }
+        }
+      }
+      changedFields = updateFields(files, summaries, writes);
+      if (changedFields.isEmpty()) {
+        break;
+      }
+    }
+  }
+
+  /** Whether a component must be summarized again after some fields' summaries changed. */
+  private static boolean affected(List<Method> component, Set<String> changedFields,
+      Set<Method> changedMethods, CallGraph callGraph) {
+    for (Method m : component) {
+      for (Method callee : callGraph.callees(m)) {
+        if (changedMethods.contains(callee)) {
+          return true;
+        }
+      }
+      boolean readsChanged = m.declaration().findFirst(com.github.javaparser.ast.expr.SimpleName.class,
+          n -> changedFields.contains(n.getIdentifier())).isPresent();
+      if (readsChanged) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  private static boolean calls(Method from, Method to) {
+    return from.declaration().findFirst(MethodCallExpr.class,
+        c -> from.file().types().projectMethod(c).map(pm -> pm.declaration() == to.declaration())
+            .orElse(false)).isPresent();
+  }
+
+  private static List<Method> methods(List<FileContext> files) {
+    List<Method> out = new ArrayList<>();
+    for (FileContext file : files) {
+      for (ControlFlowGraph g : file.graphs()) {
+        if (g.callable() instanceof CallableDeclaration<?> c
+            && c.getParentNode().orElse(null) instanceof TypeDeclaration<?>) {
+          out.add(new Method(file, c, g, out.size()));
+        }
+      }
+    }
+    return out;
+  }
+
+  /** Summarizes one method; returns whether its summary changed. */
+  private static boolean summarize(Method m, ProvenanceSummaries summaries,
+      Map<Node, List<ProvenanceFacts.FieldWrite>> writes) {
+    ProvenanceFacts facts = new ProvenanceFacts();
+    if (!ProvenanceAnalysis.analyzeGraph(m.file(), m.graph(), ProvenanceAnalysis.Mode.SUMMARY, facts)) {
+      // No fixed point: callers treat its result as unknown rows and know none of its uses.
+      return summaries.put(m.declaration(), new ProvenanceSummaries.MethodSummary(null, List.of(), true));
+    }
+    // This method's writes replace the ones it made when last summarized.
+    for (List<ProvenanceFacts.FieldWrite> list : writes.values()) {
+      list.removeIf(w -> w.graph() == m.graph());
+    }
+    for (ProvenanceFacts.FieldWrite w : facts.fieldWrites()) {
+      writes.computeIfAbsent(w.field(), k -> new ArrayList<>()).add(w);
+    }
+    String owner = m.declaration().findAncestor(TypeDeclaration.class)
+        .map(t -> t.getNameAsString() + ".").orElse("");
+    String where = " in " + owner + m.declaration().getNameAsString();
+    List<ProvenanceSummaries.ParamUse> uses = new ArrayList<>();
+    for (ProvenanceFacts.Fit f : facts.fits()) {
+      param(f.data()).ifPresent(i -> addUse(uses, new ProvenanceSummaries.ParamUse(i,
+          ProvenanceSummaries.Use.FIT, f.preprocessorName() + (f.via() == null ? where : ""),
+          f.learns(), false, null, null)));
+    }
+    for (ProvenanceFacts.Split s : facts.splits()) {
+      param(s.data()).ifPresent(i -> addUse(uses, new ProvenanceSummaries.ParamUse(i,
+          ProvenanceSummaries.Use.SPLIT, ProvenanceAnalysis.shortText(s.call()), false, s.random(),
+          null, null)));
+    }
+    for (ProvenanceFacts.Train t : facts.trains()) {
+      param(t.data()).ifPresent(i -> addUse(uses, new ProvenanceSummaries.ParamUse(i,
+          ProvenanceSummaries.Use.TRAIN, t.model() + (t.via() == null ? where : ""), false, false,
+          null, null)));
+    }
+    for (ProvenanceFacts.Evaluation e : facts.evaluations()) {
+      param(e.data()).ifPresent(i -> addUse(uses, new ProvenanceSummaries.ParamUse(i,
+          ProvenanceSummaries.Use.EVALUATE, ProvenanceAnalysis.shortText(e.call()), false, false,
+          null, e.kind())));
+    }
+    for (ProvenanceFacts.Shuffle s : facts.shuffles()) {
+      param(s.data()).ifPresent(i -> addUse(uses, new ProvenanceSummaries.ParamUse(i,
+          ProvenanceSummaries.Use.SHUFFLE, ProvenanceAnalysis.shortText(s.call()), false, false,
+          s.seeding() == ProvenanceFacts.Seeding.BY_GENERATOR_ARGUMENT ? null : s.seeding(), null)));
+    }
+    DataValue returned = null;
+    for (ProvenanceFacts.Returned r : facts.returns()) {
+      if (r.value() != null) {
+        returned = returned == null ? r.value() : returned.join(r.value());
+      }
+    }
+    return summaries.put(m.declaration(), new ProvenanceSummaries.MethodSummary(
+        returnSummary(m.declaration(), returned), uses, true));
+  }
+
+  private static void addUse(List<ProvenanceSummaries.ParamUse> uses, ProvenanceSummaries.ParamUse use) {
+    for (ProvenanceSummaries.ParamUse u : uses) {
+      if (u.index() == use.index() && u.use() == use.use() && u.learns() == use.learns()
+          && u.random() == use.random() && u.seeding() == use.seeding()
+          && u.evaluationKind() == use.evaluationKind()) {
+        return; // the first in source order describes it
+      }
+    }
+    uses.add(use);
+  }
+
+  /** The parameter whose own rows (role ARGUMENT) a fact is about, if exactly one. */
+  private static Optional<Integer> param(DataValue data) {
+    if (data == null || data.kind() != DataValue.Kind.DATA || !data.holds(Role.ARGUMENT)) {
+      return Optional.empty();
+    }
+    Integer found = null;
+    for (Lineage l : data.lineages().stream().sorted(Lineage.BY_POSITION).toList()) {
+      Optional<Integer> i = ProvenanceAnalysis.parameterIndex(l.site());
+      if (i.isPresent()) {
+        if (found != null && !found.equals(i.get())) {
+          return Optional.empty();
+        }
+        found = i.get();
+      }
+    }
+    return Optional.ofNullable(found);
+  }
+
+  private static ProvenanceSummaries.ReturnSummary returnSummary(CallableDeclaration<?> decl,
+      DataValue v) {
+    if (v == null || v.kind() == DataValue.Kind.MIXED || v.kind() == DataValue.Kind.STATISTIC
+        || v.kind() == DataValue.Kind.PENDING) {
+      return null;
+    }
+    TreeSet<Integer> fromParams = new TreeSet<>();
+    boolean own = false;
+    Set<Node> fields = DataValue.identitySet(List.of());
+    for (Lineage l : v.lineages()) {
+      Optional<Integer> i = ProvenanceAnalysis.parameterIndex(l.site());
+      if (i.isPresent() && l.site().getParentNode().orElse(null) == decl) {
+        fromParams.add(i.get());
+      } else if (l.isField()) {
+        fields.add(l.site());
+      } else {
+        own = true;
+      }
+    }
+    return new ProvenanceSummaries.ReturnSummary(v.kind(), v.roles(), v.guessed(), fromParams, own,
+        fields, v.parts(), v.isTimeOrdered());
+  }
+
+  /**
+   * Recomputes what each field may hold from every write and initializer; returns the names of
+   * the fields whose summary changed. A write of untracked rows or of a caller's argument counts
+   * as whatever the field's name says, else whole rows.
+   */
+  private static Set<String> updateFields(List<FileContext> files, ProvenanceSummaries summaries,
+      Map<Node, List<ProvenanceFacts.FieldWrite>> writes) {
+    Set<String> changed = new TreeSet<>();
+    for (FileContext file : files) {
+      for (FieldDeclaration fd : file.source().unit().findAll(FieldDeclaration.class)) {
+        for (VariableDeclarator d : fd.getVariables()) {
+          List<DataValue> values = new ArrayList<>();
+          List<Node> sites = new ArrayList<>();
+          if (d.getInitializer().isPresent()) {
+            values.add(ProvenanceAnalysis.initializerValue(file, d));
+            sites.add(d);
+          }
+          for (ProvenanceFacts.FieldWrite w : writes.getOrDefault(d, List.of())) {
+            values.add(w.value());
+            sites.add(w.at());
+          }
+          if (values.isEmpty()) {
+            continue;
+          }
+          ProvenanceSummaries.FieldSummary s = fieldSummary(d, values, sites);
+          if (s != null && summaries.putField(d, s)) {
+            changed.add(d.getNameAsString());
+          }
+        }
+      }
+    }
+    return changed;
+  }
+
+  private static ProvenanceSummaries.FieldSummary fieldSummary(VariableDeclarator d,
+      List<DataValue> values, List<Node> sites) {
+    EnumSet<Role> roles = EnumSet.noneOf(Role.class);
+    Set<Role> evidenced = EnumSet.noneOf(Role.class);
+    Set<Role> guessedOnly = EnumSet.noneOf(Role.class);
+    Set<Node> origins = DataValue.identitySet(List.of());
+    Set<Node> timeOrdered = DataValue.identitySet(List.of());
+    for (int i = 0; i < values.size(); i++) {
+      DataValue v = values.get(i);
+      if (v == null || v.kind() != DataValue.Kind.DATA || v.holds(Role.ARGUMENT)) {
+        Optional<Role> named = DataNames.heldOutRole(List.of(d.getNameAsString()));
+        roles.add(named.orElse(Role.WHOLE));
+        named.ifPresent(r -> {
+          guessedOnly.add(r);
+          origins.add(d);
+        });
+        continue;
+      }
+      roles.addAll(v.roles());
+      for (Role r : v.roles()) {
+        if (v.evidenced(r)) {
+          evidenced.add(r);
+        } else {
+          guessedOnly.add(r);
+        }
+      }
+      if (!v.onlyWhole()) {
+        origins.add(sites.get(i));
+      }
+      if (v.isTimeOrdered()) {
+        timeOrdered.add(sites.get(i));
+      }
+    }
+    guessedOnly.removeAll(evidenced);
+    return new ProvenanceSummaries.FieldSummary(roles, guessedOnly, origins, timeOrdered);
+  }
+
+  /** The project call graph and its strongly connected components (Tarjan), callees first. */
+  private static final class CallGraph {
+    private final List<Method> methods;
+    private final Map<Node, Method> byDeclaration = new IdentityHashMap<>();
+    private final Map<Method, List<Method>> callees = new IdentityHashMap<>();
+
+    CallGraph(List<Method> methods) {
+      this.methods = methods;
+      for (Method m : methods) {
+        byDeclaration.put(m.declaration(), m);
+      }
+      for (Method m : methods) {
+        List<Method> out = new ArrayList<>();
+        for (MethodCallExpr call : m.declaration().findAll(MethodCallExpr.class)) {
+          m.file().types().projectMethod(call)
+              .map(pm -> byDeclaration.get(pm.declaration()))
+              .filter(callee -> !out.contains(callee))
+              .ifPresent(out::add);
+        }
+        callees.put(m, out);
+      }
+    }
+
+    List<Method> callees(Method m) {
+      return callees.get(m);
+    }
+
+    List<List<Method>> componentsCalleesFirst() {
+      Map<Method, Integer> indexOf = new IdentityHashMap<>();
+      Map<Method, Integer> low = new IdentityHashMap<>();
+      Deque<Method> stack = new ArrayDeque<>();
+      Set<Method> onStack = java.util.Collections.newSetFromMap(new IdentityHashMap<>());
+      List<List<Method>> out = new ArrayList<>();
+      int[] counter = {0};
+      for (Method m : methods) {
+        if (!indexOf.containsKey(m)) {
+          strongConnect(m, indexOf, low, stack, onStack, out, counter);
+        }
+      }
+      return out; // Tarjan emits a component only after all components it reaches
+    }
+
+    /** Iterative Tarjan, so that deep call chains cannot overflow the stack. */
+    private void strongConnect(Method root, Map<Method, Integer> indexOf, Map<Method, Integer> low,
+        Deque<Method> stack, Set<Method> onStack, List<List<Method>> out, int[] counter) {
+      Deque<Object[]> work = new ArrayDeque<>();
+      work.push(new Object[] {root, 0});
+      indexOf.put(root, counter[0]);
+      low.put(root, counter[0]++);
+      stack.push(root);
+      onStack.add(root);
+      while (!work.isEmpty()) {
+        Object[] frame = work.peek();
+        Method v = (Method) frame[0];
+        int next = (Integer) frame[1];
+        List<Method> succ = callees.get(v);
+        if (next < succ.size()) {
+          frame[1] = next + 1;
+          Method w = succ.get(next);
+          if (!indexOf.containsKey(w)) {
+            indexOf.put(w, counter[0]);
+            low.put(w, counter[0]++);
+            stack.push(w);
+            onStack.add(w);
+            work.push(new Object[] {w, 0});
+          } else if (onStack.contains(w)) {
+            low.put(v, Math.min(low.get(v), indexOf.get(w)));
+          }
+          continue;
+        }
+        work.pop();
+        if (!work.isEmpty()) {
+          Method parent = (Method) work.peek()[0];
+          low.put(parent, Math.min(low.get(parent), low.get(v)));
+        }
+        if (low.get(v).equals(indexOf.get(v))) {
+          List<Method> component = new ArrayList<>();
+          Method w;
+          do {
+            w = stack.pop();
+            onStack.remove(w);
+            component.add(w);
+          } while (w != v);
+          component.sort((x, y) -> Integer.compare(x.order, y.order));
+          out.add(component);
+        }
+      }
+    }
+  }
+
+}

@@ -1,0 +1,228 @@
+package dev.plumbline.analysis.randomness;
+
+import com.github.javaparser.ast.Node;
+import com.github.javaparser.ast.body.CallableDeclaration;
+import com.github.javaparser.ast.body.VariableDeclarator;
+import com.github.javaparser.ast.expr.AssignExpr;
+import com.github.javaparser.ast.expr.BooleanLiteralExpr;
+import com.github.javaparser.ast.expr.Expression;
+import com.github.javaparser.ast.expr.FieldAccessExpr;
+import com.github.javaparser.ast.expr.MethodCallExpr;
+import com.github.javaparser.ast.expr.NameExpr;
+import com.github.javaparser.ast.expr.ObjectCreationExpr;
+import com.github.javaparser.ast.expr.ThisExpr;
+import com.github.javaparser.ast.stmt.ReturnStmt;
+import dev.plumbline.analysis.provenance.ProvenanceAnalysis;
+import dev.plumbline.analysis.provenance.ProvenanceFacts;
+import dev.plumbline.engine.AnalysisKey;
+import dev.plumbline.engine.FileContext;
+import dev.plumbline.flow.AstText;
+import dev.plumbline.model.ApiMethod;
+import dev.plumbline.model.Effect;
+import dev.plumbline.types.Variable;
+import java.util.Optional;
+import java.util.Set;
+
+/**
+ * Random draws that make reported numbers change from run to run: shuffles seeded from the clock
+ * ({@code DataSet.shuffle()}, {@code Collections.shuffle(list)}), shuffles and splits given a
+ * {@code new Random()} that is never seeded, network configurations built without a seed
+ * (DL4J's configuration builder defaults its seed to the current time), and DJL splits or
+ * shuffled sampling when the project never seeds DJL's engine-wide generator.
+ *
+ * <p>Library defaults were read from the real jars' bytecode (nd4j-api and deeplearning4j-nn
+ * 1.0.0-M2.1, DJL api 0.36.0) and are recorded in the API model. Approximation: a generator
+ * counts as unseeded only when its creation is visible in the same body (or as a field
+ * initializer of the same file) and no {@code setSeed} call or reassignment of it is seen there;
+ * a generator or builder that leaves the method (argument, return, field) is not followed, so
+ * the analysis errs towards silence.
+ */
+public final class RandomnessAnalysis {
+
+  public static final AnalysisKey<RandomnessFacts> KEY =
+      AnalysisKey.of("randomness", RandomnessAnalysis::analyzeFile);
+
+  private static final Set<String> LEAVES_BUILDER = Set.of("list", "graphBuilder", "build");
+
+  private final FileContext file;
+
+  private RandomnessAnalysis(FileContext file) {
+    this.file = file;
+  }
+
+  static RandomnessFacts analyzeFile(FileContext file) {
+    RandomnessFacts facts = new RandomnessFacts();
+    new RandomnessAnalysis(file).run(facts);
+    return facts;
+  }
+
+  private void run(RandomnessFacts facts) {
+    ProvenanceFacts provenance = file.analysis(ProvenanceAnalysis.KEY);
+    ProjectSeeding.SeededScopes seeded = file.projectFacts() == null ? null
+        : file.projectFacts().get(ProjectSeeding.SeededScopes.class);
+    for (ProvenanceFacts.Shuffle s : provenance.shuffles()) {
+      if (s.via() != null) {
+        continue; // reported where the helper itself shuffles
+      }
+      String subject = AstText.code(s.target());
+      if (s.seeding() == ProvenanceFacts.Seeding.CLOCK) {
+        facts.add(new RandomnessFacts.Draw(s.call(), RandomnessFacts.Kind.CLOCK_SHUFFLE, s.call(),
+            subject, s.via()));
+      } else if (s.seeding() == ProvenanceFacts.Seeding.BY_GENERATOR_ARGUMENT && s.generator() != null) {
+        unseededGenerator(s.generator()).ifPresent(g -> facts.add(new RandomnessFacts.Draw(s.call(),
+            RandomnessFacts.Kind.UNSEEDED_GENERATOR, g, subject, s.via())));
+      }
+    }
+    for (ProvenanceFacts.Split split : provenance.splits()) {
+      if (!(split.call() instanceof MethodCallExpr call) || split.via() != null) {
+        continue;
+      }
+      Optional<ApiMethod> m = file.types().apiMethod(call);
+      if (m.isEmpty()) {
+        continue;
+      }
+      String subject = AstText.code(split.splitData());
+      if (m.get().attribute("randomArg") != null) {
+        int i = m.get().intAttribute("randomArg", 0);
+        if (i < call.getArguments().size()) {
+          unseededGenerator(call.getArgument(i)).ifPresent(g -> facts.add(new RandomnessFacts.Draw(
+              call, RandomnessFacts.Kind.UNSEEDED_GENERATOR, g, subject, null)));
+        }
+      }
+      String scope = m.get().attribute("randomSource");
+      if (scope != null && seeded != null && !seeded.seeded(scope)) {
+        facts.add(new RandomnessFacts.Draw(call, RandomnessFacts.Kind.UNSEEDED_FRAMEWORK_GENERATOR,
+            call, subject, null));
+      }
+    }
+    for (MethodCallExpr call : file.source().unit().findAll(MethodCallExpr.class)) {
+      Optional<ApiMethod> m = file.types().apiMethod(call);
+      if (m.isPresent() && m.get().attribute("shuffleArg") != null && seeded != null && !seeded.seeded("djl")) {
+        int i = m.get().intAttribute("shuffleArg", 0);
+        if (i < call.getArguments().size() && call.getArgument(i) instanceof BooleanLiteralExpr b
+            && b.getValue()) {
+          // Located at the method name: in a builder chain the call itself starts lines earlier.
+          facts.add(new RandomnessFacts.Draw(call.getName(), RandomnessFacts.Kind.UNSEEDED_FRAMEWORK_GENERATOR,
+              call.getName(), call.getNameAsString() + "(" + String.join(", ",
+                  call.getArguments().stream().map(AstText::code).toList()) + ")", null));
+        }
+      }
+    }
+    for (ObjectCreationExpr oce : file.source().unit().findAll(ObjectCreationExpr.class)) {
+      Optional<ApiMethod> ctor = file.types().apiConstructor(oce);
+      if (ctor.isPresent() && "clock".equals(ctor.get().attribute("seedDefault")) && !seededBuilder(oce)) {
+        facts.add(new RandomnessFacts.Draw(oce, RandomnessFacts.Kind.CONFIGURATION_WITHOUT_SEED, oce,
+            oce.getTypeAsString(), null));
+      }
+    }
+  }
+
+  /**
+   * Whether a configuration builder gets a seed, or may get one where we cannot see: a seed call
+   * in its chain before the chain leaves the builder ({@code list()}, {@code build()}); or, when
+   * the builder is kept in a local variable, a seed call on that variable in the same body; a
+   * builder that escapes counts as seeded (unknown).
+   */
+  private boolean seededBuilder(ObjectCreationExpr creation) {
+    Expression current = creation;
+    while (current.getParentNode().orElse(null) instanceof MethodCallExpr parent
+        && parent.getScope().orElse(null) == current) {
+      Optional<ApiMethod> m = file.types().apiMethod(parent);
+      if (m.isPresent() && m.get().effect() == Effect.SEED) {
+        return true;
+      }
+      if (LEAVES_BUILDER.contains(parent.getNameAsString())) {
+        return false;
+      }
+      current = parent;
+    }
+    Node holder = current.getParentNode().orElse(null);
+    Optional<Variable> kept = Optional.empty();
+    if (holder instanceof VariableDeclarator d && d.getInitializer().orElse(null) == current) {
+      kept = Optional.of(file.types().symbols().variableOf(d));
+    }
+    if (kept.isEmpty() || kept.get().isField()) {
+      return true; // stored elsewhere, passed on or returned: the seed may be set where we cannot see
+    }
+    Variable builder = kept.get();
+    Node body = creation.findAncestor(CallableDeclaration.class).map(n -> (Node) n).orElse(null);
+    if (body == null) {
+      return true;
+    }
+    for (NameExpr use : body.findAll(NameExpr.class)) {
+      if (!file.types().symbols().resolve(use).filter(v -> v == builder).isPresent()) {
+        continue;
+      }
+      Node parent = use.getParentNode().orElse(null);
+      if (parent instanceof MethodCallExpr call && call.getScope().orElse(null) == use) {
+        if (chainSeeds(call)) {
+          return true;
+        }
+      } else if (!(parent instanceof AssignExpr)) {
+        return true; // passed to a call, returned or copied: it may be seeded elsewhere
+      }
+    }
+    return false;
+  }
+
+  private boolean chainSeeds(MethodCallExpr first) {
+    Expression current = first;
+    while (current instanceof MethodCallExpr call) {
+      Optional<ApiMethod> m = file.types().apiMethod(call);
+      if (m.isPresent() && m.get().effect() == Effect.SEED) {
+        return true;
+      }
+      if (LEAVES_BUILDER.contains(call.getNameAsString())) {
+        return false;
+      }
+      Node parent = call.getParentNode().orElse(null);
+      current = parent instanceof MethodCallExpr p && p.getScope().orElse(null) == call ? p : null;
+    }
+    return false;
+  }
+
+  /**
+   * Where an unseeded generator given as {@code generator} is created: {@code new Random()} in
+   * place, or in the initializer of a local variable or field that is never reassigned or seeded
+   * in the body (for a field: in the file).
+   */
+  private Optional<Node> unseededGenerator(Expression generator) {
+    if (generator instanceof ObjectCreationExpr oce) {
+      return unseededCreation(oce) ? Optional.of(oce) : Optional.empty();
+    }
+    Optional<Variable> v = Optional.empty();
+    if (generator instanceof NameExpr n) {
+      v = file.types().symbols().resolve(n);
+    } else if (generator instanceof FieldAccessExpr fa && fa.getScope() instanceof ThisExpr) {
+      v = file.types().symbols().field(fa, fa.getNameAsString());
+    }
+    if (v.isEmpty() || !(v.get().declaration() instanceof VariableDeclarator d)
+        || !(d.getInitializer().orElse(null) instanceof ObjectCreationExpr init)
+        || !unseededCreation(init)) {
+      return Optional.empty();
+    }
+    Node scope = v.get().isField() ? file.source().unit()
+        : generator.findAncestor(CallableDeclaration.class).map(n -> (Node) n).orElse(null);
+    if (scope == null) {
+      return Optional.empty();
+    }
+    Variable variable = v.get();
+    for (NameExpr use : scope.findAll(NameExpr.class)) {
+      if (!file.types().symbols().resolve(use).filter(x -> x == variable).isPresent()) {
+        continue;
+      }
+      Node parent = use.getParentNode().orElse(null);
+      if (parent instanceof AssignExpr as && as.getTarget() == use
+          || parent instanceof MethodCallExpr call && call.getScope().orElse(null) == use
+              && file.types().apiMethod(call).map(m -> m.effect() == Effect.SEED).orElse(true)
+          || parent instanceof ReturnStmt) {
+        return Optional.empty();
+      }
+    }
+    return Optional.of(init);
+  }
+
+  private boolean unseededCreation(ObjectCreationExpr oce) {
+    return file.types().apiConstructor(oce).map(m -> "false".equals(m.attribute("seeded"))).orElse(false);
+  }
+}
