@@ -37,7 +37,8 @@ import org.junit.jupiter.api.io.TempDir;
  * {@link ServerSocket#setSocketFactory}, {@link DatagramSocket#setDatagramSocketImplFactory})
  * and URL stream handlers for network protocols are replaced by guards that record and refuse
  * every attempt, then whole scans of the corpus run through the command line in every format.
- * The guards are JVM-wide and stay installed for the rest of this test JVM, which uses no network.
+ * The guards are JVM-wide and stay installed for the rest of this test JVM; the module's build
+ * gives each test class a JVM of its own (surefire {@code reuseForks=false}).
  * NIO channels cannot be guarded this way, so the source check below covers them.
  *
  * <p>In the source: no main class of the analyzer, rules or command line names an API that
