@@ -110,7 +110,8 @@ public final class RandomnessAnalysis {
     }
     for (ObjectCreationExpr oce : file.source().unit().findAll(ObjectCreationExpr.class)) {
       Optional<ApiMethod> ctor = file.types().apiConstructor(oce);
-      if (ctor.isPresent() && "clock".equals(ctor.get().attribute("seedDefault")) && !seededBuilder(oce)) {
+      if (ctor.isPresent() && "clock".equals(ctor.get().attribute("seedDefault")) && !seededBuilder(oce)
+          && !onlyBuildsIdleNetworks(chainEnd(oce))) {
         facts.add(new RandomnessFacts.Draw(oce, RandomnessFacts.Kind.CONFIGURATION_WITHOUT_SEED, oce,
             oce.getTypeAsString(), null));
       }
@@ -163,6 +164,69 @@ public final class RandomnessAnalysis {
       }
     }
     return false;
+  }
+
+  /** The outermost call of the builder chain that starts at {@code start}. */
+  private static Expression chainEnd(Expression start) {
+    Expression current = start;
+    while (current.getParentNode().orElse(null) instanceof MethodCallExpr parent
+        && parent.getScope().orElse(null) == current) {
+      current = parent;
+    }
+    return current;
+  }
+
+  /**
+   * Whether the configuration {@code value} holds provably reaches no number: it is only given
+   * to network constructors ({@code Effect.BUILD}), directly or through a local variable, and
+   * each network is only used through calls the model marks {@code inert} (they neither train the
+   * network nor read anything computed from its weights, as {@code init()}). Any other use (a
+   * return, a field, a call we do not model, a lambda) may lead to reported numbers.
+   */
+  private boolean onlyBuildsIdleNetworks(Expression value) {
+    Node parent = value.getParentNode().orElse(null);
+    if (parent instanceof ObjectCreationExpr network && network.getArguments().contains(value)) {
+      Optional<ApiMethod> ctor = file.types().apiConstructor(network);
+      return ctor.isPresent() && ctor.get().effect() == Effect.BUILD
+          && network.getArguments().indexOf(value) == ctor.get().intAttribute("configArg", -1)
+          && onlyInertUses(network);
+    }
+    return everyLocalUse(parent, value, this::onlyBuildsIdleNetworks);
+  }
+
+  /** Whether the network made by {@code network} is only used through inert calls. */
+  private boolean onlyInertUses(Expression network) {
+    Node parent = network.getParentNode().orElse(null);
+    if (parent instanceof MethodCallExpr call && call.getScope().orElse(null) == network) {
+      return file.types().apiMethod(call).map(m -> "true".equals(m.attribute("inert"))).orElse(false)
+          && call.getParentNode().orElse(null) instanceof com.github.javaparser.ast.stmt.ExpressionStmt;
+    }
+    return everyLocalUse(parent, network, this::onlyInertUses);
+  }
+
+  /**
+   * When {@code value} initializes a local variable, whether {@code test} holds for every read of
+   * that variable in the method, lambdas included (and the variable is never reassigned); false
+   * otherwise.
+   */
+  private boolean everyLocalUse(Node parent, Expression value, java.util.function.Predicate<Expression> test) {
+    if (!(parent instanceof VariableDeclarator d) || d.getInitializer().orElse(null) != value) {
+      return false;
+    }
+    Variable v = file.types().symbols().variableOf(d);
+    Node body = d.findAncestor(CallableDeclaration.class).map(n -> (Node) n).orElse(null);
+    if (v.isField() || body == null) {
+      return false;
+    }
+    for (NameExpr use : body.findAll(NameExpr.class)) {
+      if (!file.types().symbols().resolve(use).filter(x -> x == v).isPresent()) {
+        continue;
+      }
+      if (use.getParentNode().orElse(null) instanceof AssignExpr as && as.getTarget() == use || !test.test(use)) {
+        return false;
+      }
+    }
+    return true;
   }
 
   private boolean chainSeeds(MethodCallExpr first) {

@@ -650,6 +650,9 @@ final class ScopeEvaluator {
     if (receiver == null || !receiver.isTensor() || target == null) {
       return;
     }
+    if (sink != null && target.kind() == Kind.SCOPE_HANDLE) {
+      sink.chosenForMovedArrays(target.scopes());
+    }
     if (temporary) {
       Set<Scope> both = new HashSet<>(receiver.scopes());
       both.addAll(target.scopes());

@@ -102,6 +102,7 @@ public final class ScopeFacts {
   private final Set<Node> released = Collections.newSetFromMap(new IdentityHashMap<>());
   private final Set<Node> kept = Collections.newSetFromMap(new IdentityHashMap<>());
   private final Set<Scope> handedOff = new java.util.HashSet<>();
+  private final Set<Scope> chosenForMovedArrays = new java.util.HashSet<>();
   private final Map<Node, LoopTraits> loops = new IdentityHashMap<>();
 
   // ------------------------------------------------------------------ recording (analysis only)
@@ -144,6 +145,10 @@ public final class ScopeFacts {
 
   void handedOff(Set<Scope> scopes) {
     handedOff.addAll(scopes);
+  }
+
+  void chosenForMovedArrays(Set<Scope> scopes) {
+    chosenForMovedArrays.addAll(scopes);
   }
 
   void loop(Statement loop, LoopTraits traits) {
@@ -192,6 +197,15 @@ public final class ScopeFacts {
   /** Whether a scope handle is passed to code we do not see, which may close it. */
   public boolean handedOff(Scope s) {
     return handedOff.contains(s);
+  }
+
+  /**
+   * Whether the method moves arrays into this scope on purpose ({@code attach},
+   * {@code tempAttach}) while the scope itself comes from the caller: results computed from those
+   * arrays then land where the caller chose, and the caller decides when they are released.
+   */
+  public boolean chosenByCaller(Scope s) {
+    return !s.opened() && chosenForMovedArrays.contains(s);
   }
 
   /** Whether the scope is opened anew in each iteration of {@code loop}. */

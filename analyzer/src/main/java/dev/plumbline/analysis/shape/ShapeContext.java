@@ -33,6 +33,8 @@ final class ShapeContext {
   final Map<HelperCalls.Key, ShapeValue> helperResults = new HashMap<>();
   final Map<CallableDeclaration<?>, HelperCalls.Summary> helperSummaries = new IdentityHashMap<>();
   final Deque<CallableDeclaration<?>> evaluating = new ArrayDeque<>();
+  /** Local arrays written into from a lambda or a class body inside their scope, by declaration. */
+  final Map<com.github.javaparser.ast.Node, Boolean> storedFromNestedCode = new IdentityHashMap<>();
   /** Field initializers being evaluated, to stop cycles between constants. */
   final java.util.Set<com.github.javaparser.ast.Node> evaluatingFields =
       java.util.Collections.newSetFromMap(new IdentityHashMap<>());

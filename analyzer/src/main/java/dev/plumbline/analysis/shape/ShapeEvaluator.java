@@ -48,6 +48,11 @@ import java.util.Set;
  * {@link TensorTransfer} and {@link NetworkTransfer}, project methods to {@link HelperCalls}.
  */
 final class ShapeEvaluator {
+  /** {@code java.util.Arrays} methods that only read the arrays they are given. */
+  private static final java.util.Set<String> READ_ONLY_ARRAYS_METHODS = java.util.Set.of(
+      "toString", "deepToString", "equals", "deepEquals", "hashCode", "deepHashCode", "stream",
+      "copyOf", "copyOfRange", "binarySearch", "compare", "mismatch");
+
   private static final Set<String> INTEGRAL = Set.of("int", "long", "short", "byte",
       "java.lang.Integer", "java.lang.Long", "java.lang.Short", "java.lang.Byte");
 
@@ -240,6 +245,16 @@ final class ShapeEvaluator {
           state = state.with(target.get(), new ShapeValue.Int(next));
           return new ShapeValue.Int(u.isPrefix() ? next : now);
         }
+        if (unwrap(u.getExpression()) instanceof ArrayAccessExpr element) {
+          // The index was evaluated with the element; its value only matters when constant.
+          ShapeValue index = element.getIndex() instanceof com.github.javaparser.ast.expr.IntegerLiteralExpr
+              ? eval(element.getIndex()) : null;
+          long step = u.getOperator() == UnaryExpr.Operator.PREFIX_INCREMENT
+              || u.getOperator() == UnaryExpr.Operator.POSTFIX_INCREMENT ? 1 : -1;
+          Dim now = v instanceof ShapeValue.Int i ? i.value() : Dim.UNKNOWN;
+          changeElement(element, index, new ShapeValue.Int(now.plus(Dim.of(step))));
+          return new ShapeValue.Int(u.isPrefix() ? now.plus(Dim.of(step)) : now);
+        }
         return null;
       }
       default:
@@ -268,6 +283,9 @@ final class ShapeEvaluator {
   ShapeValue read(Variable v, Expression at) {
     Optional<ShapeValue> known = state.get(v);
     if (known.isPresent()) {
+      if (known.get() instanceof ShapeValue.Tuple t && storedFromNestedCode(v)) {
+        return t.overwritten(); // the lambda may have run, or may run, at any time
+      }
       return known.get();
     }
     String type = types.typeOf(v);
@@ -401,6 +419,9 @@ final class ShapeEvaluator {
   }
 
   private ShapeValue assign(AssignExpr as) {
+    if (unwrap(as.getTarget()) instanceof ArrayAccessExpr element) {
+      return storeElement(element, as.getOperator(), as.getValue());
+    }
     Optional<Variable> target = targetOf(as.getTarget());
     ShapeValue value = target.isPresent() ? evalNamed(as.getValue(), target.get().name()) : eval(as.getValue());
     if (as.getOperator() != AssignExpr.Operator.ASSIGN) {
@@ -471,6 +492,138 @@ final class ShapeEvaluator {
   }
 
   // ------------------------------------------------------------------ arrays
+
+  /**
+   * {@code a[i] = v} (or a compound assignment) on an array of sizes held in a variable: the
+   * element becomes {@code v} when the index is a known constant, every element becomes unknown
+   * otherwise. A store into an inner array ({@code m[i][j] = v}) keeps the outer array's
+   * contents but, storing an array, may change its nested shape.
+   */
+  private ShapeValue storeElement(ArrayAccessExpr element, AssignExpr.Operator op, Expression valueExpr) {
+    ShapeValue arr = eval(element.getName());
+    ShapeValue index = eval(element.getIndex());
+    ShapeValue value = eval(valueExpr);
+    if (op != AssignExpr.Operator.ASSIGN) {
+      value = compound(op, elementOf(arr, index), value);
+    }
+    changeElement(element, index, value);
+    return value;
+  }
+
+  /** Records that an element of the array behind {@code element} now holds {@code value}. */
+  private void changeElement(ArrayAccessExpr element, ShapeValue index, ShapeValue value) {
+    Expression array = unwrap(element.getName());
+    Expression root = array;
+    while (root instanceof ArrayAccessExpr inner) {
+      root = unwrap(inner.getName());
+    }
+    Optional<Variable> holder = targetOf(root);
+    if (holder.isEmpty() || !(read(holder.get(), root) instanceof ShapeValue.Tuple t)) {
+      return;
+    }
+    ShapeValue.Tuple after;
+    if (root != array) {
+      after = value instanceof ShapeValue.Tuple ? t.overwritten() : new ShapeValue.Tuple(t.elements(), t.data());
+    } else {
+      Long at = index instanceof ShapeValue.Int i && i.value().isConstant() ? i.value().constant().getAsLong() : null;
+      after = t.storing(at, value instanceof ShapeValue.Int n ? n.value() : Dim.UNKNOWN);
+    }
+    state = state.with(holder.get(), after);
+  }
+
+  private static ShapeValue elementOf(ShapeValue arr, ShapeValue index) {
+    if (arr instanceof ShapeValue.Tuple t && t.elements() != null && index instanceof ShapeValue.Int i
+        && i.value().isConstant()) {
+      long k = i.value().constant().getAsLong();
+      return k >= 0 && k < t.elements().size() ? new ShapeValue.Int(t.elements().get((int) k)) : null;
+    }
+    return null;
+  }
+
+  /**
+   * Whether a local array is written into from a lambda or a class body within its scope: those
+   * stores run when the code is called, which this flow analysis does not follow.
+   */
+  private boolean storedFromNestedCode(Variable v) {
+    if (v.kind() == Variable.Kind.FIELD) {
+      return false;
+    }
+    return analysis.context.storedFromNestedCode.computeIfAbsent(v.declaration(), declaration -> {
+      Node scope = declaration.findAncestor(com.github.javaparser.ast.body.CallableDeclaration.class)
+          .map(n -> (Node) n).orElse(null);
+      if (scope == null) {
+        return true;
+      }
+      for (ArrayAccessExpr access : scope.findAll(ArrayAccessExpr.class)) {
+        Node parent = access.getParentNode().orElse(null);
+        boolean store = parent instanceof AssignExpr as && as.getTarget() == access
+            || parent instanceof UnaryExpr u && u.getExpression() == access && isStep(u.getOperator());
+        if (!store) {
+          continue;
+        }
+        Expression root = unwrap(access.getName());
+        while (root instanceof ArrayAccessExpr inner) {
+          root = unwrap(inner.getName());
+        }
+        if (root instanceof NameExpr n && types.symbols().resolve(n).filter(x -> x == v).isPresent()
+            && nestedBoundaryBetween(access, declaration)) {
+          return true;
+        }
+      }
+      return false;
+    });
+  }
+
+  private static boolean isStep(UnaryExpr.Operator op) {
+    return op == UnaryExpr.Operator.PREFIX_INCREMENT || op == UnaryExpr.Operator.POSTFIX_INCREMENT
+        || op == UnaryExpr.Operator.PREFIX_DECREMENT || op == UnaryExpr.Operator.POSTFIX_DECREMENT;
+  }
+
+  /** Whether a lambda or class body lies between {@code node} and the code that declares {@code declaration}. */
+  private static boolean nestedBoundaryBetween(Node node, Node declaration) {
+    for (Node current = node.getParentNode().orElse(null); current != null;
+        current = current.getParentNode().orElse(null)) {
+      if (encloses(current, declaration)) {
+        return false; // reached code that also encloses the declaration
+      }
+      if (current instanceof LambdaExpr || current instanceof com.github.javaparser.ast.body.BodyDeclaration<?>
+          || current instanceof ObjectCreationExpr oce && oce.getAnonymousClassBody().isPresent()) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  private static boolean encloses(Node ancestor, Node node) {
+    for (Node n = node; n != null; n = n.getParentNode().orElse(null)) {
+      if (n == ancestor) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  /**
+   * Java arrays handed to code we do not model (a project method, a library outside the API
+   * model such as {@code Arrays.fill}) may be written into there: their contents are forgotten.
+   * A DJL {@code Shape} cannot change, and the JDK's read-only array utilities do not write.
+   */
+  private void mayWriteInto(MethodCallExpr call, List<Expression> arguments, List<ShapeValue> values) {
+    if (call != null && call.getScope().isPresent()
+        && "java.util.Arrays".equals(types.typeReference(call.getScope().get()))
+        && READ_ONLY_ARRAYS_METHODS.contains(call.getNameAsString())) {
+      return;
+    }
+    for (int i = 0; i < arguments.size(); i++) {
+      String type = types.typeOf(arguments.get(i));
+      if (values.get(i) instanceof ShapeValue.Tuple t && type != null && type.endsWith("[]")) {
+        Optional<Variable> holder = targetOf(arguments.get(i));
+        if (holder.isPresent()) {
+          state = state.with(holder.get(), t.overwritten());
+        }
+      }
+    }
+  }
 
   private ShapeValue arrayAccess(ArrayAccessExpr aa) {
     Expression array = unwrap(aa.getName());
@@ -562,10 +715,13 @@ final class ShapeEvaluator {
     Optional<ProjectIndex.ProjectMethod> helper = types.projectMethod(call);
     if (helper.isPresent()) {
       ShapeValue v = new HelperCalls(this).call(call, helper.get(), args);
+      mayWriteInto(call, call.getArguments(), args);
       if (v != null) {
         return v;
       }
+      return unknownResult(call);
     }
+    mayWriteInto(call, call.getArguments(), args);
     return unknownResult(call);
   }
 
@@ -610,6 +766,8 @@ final class ShapeEvaluator {
       if (v != TensorTransfer.NOT_HANDLED) {
         return v;
       }
+    } else {
+      mayWriteInto(null, oce.getArguments(), args);
     }
     String type = types.symbols().types().resolve(oce.getType());
     if (type != null) {

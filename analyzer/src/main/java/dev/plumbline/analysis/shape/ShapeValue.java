@@ -119,15 +119,55 @@ public sealed interface ShapeValue
   /**
    * An array of sizes ({@code long[]}, {@code int[]}) or a DJL {@code Shape}: its elements, and
    * for a data array its shape as nested data ({@code new double[][] {{1, 2}, {3, 4}}} is
-   * {@code [2, 2]}), which may be null.
+   * {@code [2, 2]}), which may be null. {@code shapeOfTensor} says the sizes are a tensor's whole
+   * shape, read as one ({@code y.shape()}, {@code y.getShape()}) and not changed since: a reshape
+   * to them lays the data out as that tensor is laid out, whatever its sizes are.
    */
-  record Tuple(List<Dim> elements, TensorShape data) implements ShapeValue {
+  record Tuple(List<Dim> elements, TensorShape data, boolean shapeOfTensor) implements ShapeValue {
     public Tuple {
       elements = elements == null ? null : List.copyOf(elements);
     }
 
+    public Tuple(List<Dim> elements, TensorShape data) {
+      this(elements, data, false);
+    }
+
     public static Tuple of(List<Dim> elements) {
       return new Tuple(elements, TensorShape.of(Dim.of(elements.size())));
+    }
+
+    /** A tensor's whole shape: its sizes when the rank is known, else nothing but the mark. */
+    public static Tuple shapeOf(TensorShape shape) {
+      return shape.rankKnown()
+          ? new Tuple(shape.dims(), TensorShape.of(Dim.of(shape.rank())), true)
+          : new Tuple(null, null, true);
+    }
+
+    /**
+     * This array after a store into one of its elements: {@code index} and {@code value} when
+     * known (index null: any element may have changed). The array keeps its length; it is no
+     * longer a tensor's shape as read.
+     */
+    public Tuple storing(Long index, Dim value) {
+      List<Dim> e = null;
+      if (elements != null) {
+        e = new ArrayList<>(elements);
+        for (int i = 0; i < e.size(); i++) {
+          if (index == null) {
+            e.set(i, Dim.UNKNOWN);
+          } else if (i == index) {
+            e.set(i, value);
+          }
+        }
+      }
+      return new Tuple(e, data, false);
+    }
+
+    /** This array after code we do not see may have written into it: length kept, contents unknown. */
+    public Tuple overwritten() {
+      List<Dim> e = elements == null ? null : java.util.Collections.nCopies(elements.size(), Dim.UNKNOWN);
+      TensorShape d = data == null || !data.rankKnown() || data.rank() <= 1 ? data : TensorShape.ofRank(data.rank());
+      return new Tuple(e, d, false);
     }
 
     @Override
@@ -143,14 +183,14 @@ public sealed interface ShapeValue
         }
       }
       TensorShape d = data == null || t.data == null ? null : data.join(t.data);
-      return new Tuple(e, d);
+      return new Tuple(e, d, shapeOfTensor && t.shapeOfTensor);
     }
 
     @Override
     public ShapeValue forgetting(Set<Symbol> symbols, Site site) {
       List<Dim> e = elements == null ? null : elements.stream()
           .map(d -> java.util.Collections.disjoint(d.symbols(), symbols) ? d : Dim.UNKNOWN).toList();
-      return new Tuple(e, data == null ? null : data.forgetting(symbols));
+      return new Tuple(e, data == null ? null : data.forgetting(symbols), shapeOfTensor);
     }
   }
 

@@ -173,16 +173,22 @@ final class TensorTransfer {
    * A reshape is "computed" when two or more of its sizes are not known constants ({@code -1}
    * counts): how the elements are split between those sizes then depends on computation the
    * element count cannot validate, so a wrong value silently lays the data out wrongly. (A single
-   * free size is fixed by the element count, and a wrong one fails loudly.) Unless the analysis
-   * proves the result exactly, or the input's shape was checked, the result carries a pending
-   * unchecked mark until a check or a shape-sensitive use.
+   * free size is fixed by the element count, and a wrong one fails loudly.) Sizes that are another
+   * tensor's whole shape, read as one ({@code label.reshape(prediction.getShape())}), are not
+   * computed: the result is laid out as that tensor is, which is what the call asks for. Unless
+   * the analysis proves the result exactly, or the input's shape was checked, a computed reshape's
+   * result carries a pending unchecked mark until a check or a shape-sensitive use.
    */
   private ShapeValue reshape(MethodCallExpr call, ApiMethod m, Tensor in, List<ShapeValue> args, Framework fw) {
-    List<Dim> target = sizes(call.getArguments(), args, m.intAttribute("shapeArg", 0));
+    int at = m.intAttribute("shapeArg", 0);
+    List<Dim> target = sizes(call.getArguments(), args, at);
     ShapeOutcome out = target == null ? ShapeOutcome.unknown() : ShapeSemantics.reshape(fw, in.shape(), target);
     record(call, OpKind.RESHAPE, fw, scopeList(call), List.of(in), out, false, null, false);
     Tensor result = fresh(call, out, fw);
-    boolean computed = target == null || target.stream().filter(d -> !d.isConstant() || d.is(-1)).count() >= 2;
+    boolean anotherTensorsShape = call.getArguments().size() == at + 1 && at < args.size()
+        && args.get(at) instanceof ShapeValue.Tuple t && t.shapeOfTensor();
+    boolean computed = !anotherTensorsShape
+        && (target == null || target.stream().filter(d -> !d.isConstant() || d.is(-1)).count() >= 2);
     boolean proven = out.succeeds() && out.result().fullyKnown();
     return computed && !in.checked() && !proven ? result.withUnchecked(Set.of(Site.of(call))) : result;
   }
@@ -416,12 +422,8 @@ final class TensorTransfer {
     String q = String.valueOf(m.attribute("query"));
     Tensor t = receiver instanceof Tensor tr ? tr : null;
     switch (q) {
-      case "shape": {
-        if (t == null) {
-          return new ShapeValue.Tuple(null, null);
-        }
-        return t.shape().rankKnown() ? ShapeValue.Tuple.of(t.shape().dims()) : new ShapeValue.Tuple(null, null);
-      }
+      case "shape":
+        return ShapeValue.Tuple.shapeOf(t == null ? TensorShape.unknown() : t.shape());
       case "size": {
         Integer axis = constant(args, 0);
         return t == null || axis == null ? new ShapeValue.Int(Dim.UNKNOWN) : ev.dimRead(scope, t, axis, call);

@@ -40,9 +40,12 @@ public final class TestInTuningRule implements Rule {
         continue;
       }
       Node origin = Evidence.origin(file, e.data(), e.argument());
+      // The calculator is itself what the score decides: name the decision, not the call twice.
+      String configurationSuffix = use.steering() == LoopRoleFacts.Steering.EARLY_STOPPING_CONFIGURATION
+          ? ".early-stopping-configuration" : "";
       String variant = switch (certainty) {
-        case POSSIBLE -> "possible";
-        case NAMED -> "named";
+        case POSSIBLE -> "possible" + configurationSuffix;
+        case NAMED -> "named" + configurationSuffix;
         default -> switch (use.steering()) {
           case MODEL_SELECTION -> "selection";
           case EARLY_STOP -> "early-stop";

@@ -27,7 +27,8 @@ import java.util.Set;
  * kept on purpose, or handed to code we do not see is not reported; neither is one whose owner
  * may be released within the iteration on some path, nor one whose owner is renewed by an
  * enclosing loop (the arrays of the time steps of one batch are released with the batch, and
- * the graph needs them until then).
+ * the graph needs them until then), nor one owned by a manager the caller passed in and into
+ * which the method moves arrays on purpose (the caller then decides when they are released).
  */
 public final class ScopeEscapeRule implements Rule {
   public static final String ID = "memory.scope-escape";
@@ -78,6 +79,9 @@ public final class ScopeEscapeRule implements Rule {
       Scope owner = owners.iterator().next();
       if (!owner.ownsMemory() || alloc.loops().stream().anyMatch(l -> facts.opensWithin(owner, l))) {
         continue; // renewed by some enclosing loop: growth is bounded by one of its iterations
+      }
+      if (facts.chosenByCaller(owner)) {
+        continue; // arrays routed on purpose into the caller's manager: the caller releases them
       }
       firsts.computeIfAbsent(loop, k -> new java.util.HashMap<>()).putIfAbsent(owner, alloc);
     }
