@@ -83,6 +83,10 @@ public final class Discovery {
               public FileVisitResult visitFile(Path file, BasicFileAttributes attrs) {
                 if (attrs.isRegularFile()) {
                   consider(file, absolute, found, false);
+                } else if (attrs.isSymbolicLink() && wanted(file, uriOf(file, absolute), false)) {
+                  // Links are followed, so a link seen as a link points nowhere readable.
+                  notes.add(new Notification(Severity.WARNING, Message.of("notification.unreadable-path",
+                      uriOf(file, absolute), "broken symbolic link"), Optional.empty(), true));
                 }
                 return FileVisitResult.CONTINUE;
               }
@@ -107,19 +111,23 @@ public final class Discovery {
   }
 
   private void consider(Path file, Path root, TreeMap<String, SourceFile> found, boolean explicit) {
+    String uri = uriOf(file, root);
+    if (wanted(file, uri, explicit)) {
+      found.putIfAbsent(uri, new SourceFile(file, uri));
+    }
+  }
+
+  /** A supported file kind that the include and exclude globs let through. */
+  private boolean wanted(Path file, String uri, boolean explicit) {
     String name = file.getFileName().toString();
     boolean supported = name.endsWith(".java") || (options.notebooks() && name.endsWith(".ipynb"));
     if (!supported) {
-      return;
+      return false;
     }
-    String uri = uriOf(file, root);
     if (!explicit && !includes.isEmpty() && includes.stream().noneMatch(m -> m.matches(Path.of(uri)))) {
-      return;
+      return false;
     }
-    if (excludes.stream().anyMatch(m -> m.matches(Path.of(uri)))) {
-      return;
-    }
-    found.putIfAbsent(uri, new SourceFile(file, uri));
+    return excludes.stream().noneMatch(m -> m.matches(Path.of(uri)));
   }
 
   /** Report name: relative to the base directory when inside it, else to the scanned root. */

@@ -6,13 +6,13 @@ import dev.plumbline.analysis.entrypoints.EntryPointAnalysis;
 import dev.plumbline.analysis.entrypoints.TrainingEntryPoint;
 import dev.plumbline.analysis.rowcount.RowCountSummaries;
 import dev.plumbline.discover.Discovery;
-import dev.plumbline.discover.SourceFile;
 import dev.plumbline.finding.Finding;
 import dev.plumbline.finding.Location;
 import dev.plumbline.finding.Message;
 import dev.plumbline.finding.Notification;
 import dev.plumbline.finding.RelatedLocation;
 import dev.plumbline.finding.Severity;
+import dev.plumbline.finding.SourceRange;
 import dev.plumbline.model.ApiModel;
 import dev.plumbline.parse.NotebookLayout;
 import dev.plumbline.parse.ParsedSource;
@@ -22,14 +22,18 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
+import java.util.Objects;
 import java.util.Optional;
 import java.util.TreeMap;
+import java.util.concurrent.Callable;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.concurrent.FutureTask;
 import java.util.concurrent.ThreadFactory;
 import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.BiFunction;
 import java.util.function.Function;
 
 /**
@@ -90,7 +94,17 @@ public final class Scanner {
     this(model, rules, List.of(), ScanListener.NONE);
   }
 
+  /**
+   * Scans and returns sorted findings and notifications. Never throws for anything in the input:
+   * problems with files, rules or analyses come back as notifications. The work runs on threads
+   * with a {@linkplain #WORKER_STACK_BYTES large stack}, never on the caller's, so deeply nested
+   * code cannot overflow the caller's stack.
+   */
   public ScanResult scan(ScanRequest request) {
+    return onLargeStack(() -> run(request));
+  }
+
+  private ScanResult run(ScanRequest request) {
     Discovery discovery = new Discovery(new Discovery.Options(request.baseDirectory(),
         request.includes(), request.excludes(), true));
     Discovery.Result found = discovery.discover(request.paths());
@@ -100,7 +114,9 @@ public final class Scanner {
     ExecutorService pool = Executors.newFixedThreadPool(request.jobs(), workerThreads());
     try {
       SourceParser parser = new SourceParser();
-      List<SourceParser.Outcome> outcomes = parallel(pool, found.files(), parser::parse);
+      List<SourceParser.Outcome> outcomes = parallel(pool, found.files(), parser::parse,
+          (file, e) -> new SourceParser.Outcome(Optional.empty(), List.of(fileFailure(
+              "notification.parse-crash", file.uri(), e.getClass().getSimpleName()))));
       List<ParsedSource> parsed = new ArrayList<>();
       for (SourceParser.Outcome o : outcomes) {
         notes.addAll(o.notifications());
@@ -109,22 +125,16 @@ public final class Scanner {
       List<CompilationUnit> units = parsed.stream().map(ParsedSource::unit).toList();
       ProjectIndex index = ProjectIndex.build(model, units);
       ProjectFacts facts = new ProjectFacts();
-      List<FileContext> contexts = parsed.stream()
-          .map(p -> new FileContext(p, index, facts, request.settings())).toList();
       List<ProjectAnalysis> analyses = new ArrayList<>(projectAnalyses);
       if (audit) {
         analyses.add(new RowCountSummaries());
       }
-      for (ProjectAnalysis pa : analyses) {
-        try {
-          pa.compute(contexts, index, facts);
-        } catch (RuntimeException | StackOverflowError e) {
-          notes.add(new Notification(Severity.ERROR, Message.of("notification.project-analysis-failed",
-              pa.getClass().getSimpleName(), describe(e)), Optional.empty(), true));
-        }
-      }
+      runProjectAnalyses(pool, analyses, parsed, index, facts, request, notes);
       // Fresh contexts per file for rules: project analyses may have filled the first ones.
-      List<FileOutcome> perFile = parallel(pool, parsed, p -> checkFile(new FileContext(p, index, facts, request.settings())));
+      List<FileOutcome> perFile = parallel(pool, parsed,
+          p -> checkFile(new FileContext(p, index, facts, request.settings())),
+          (p, e) -> new FileOutcome(List.of(), List.of(fileFailure("notification.file-analysis-failed",
+              p.file().uri(), describe(e))), List.of(), lineCount(p.text())));
       List<Finding> findings = new ArrayList<>();
       List<CallableSummary> callables = new ArrayList<>();
       Map<String, String> sources = new TreeMap<>();
@@ -143,7 +153,7 @@ public final class Scanner {
           sources.put(source.file().uri(), source.lineMap() instanceof NotebookLayout layout
               ? layout.reportedText() : source.text());
         }
-        lines += source.text().lines().count();
+        lines += fo.lines();
       }
       findings.sort(Finding.ORDER);
       notes.sort(Notification.ORDER);
@@ -155,22 +165,45 @@ public final class Scanner {
     }
   }
 
-  private record FileOutcome(List<Finding> findings, List<Notification> notifications,
-      List<CallableSummary> callables) {}
+  private void runProjectAnalyses(ExecutorService pool, List<ProjectAnalysis> analyses,
+      List<ParsedSource> parsed, ProjectIndex index, ProjectFacts facts, ScanRequest request,
+      List<Notification> notes) {
+    if (analyses.isEmpty()) {
+      return;
+    }
+    List<FileContext> contexts = parallel(pool, parsed,
+        p -> new FileContext(p, index, facts, request.settings()), (p, e) -> null)
+        .stream().filter(Objects::nonNull).toList();
+    for (ProjectAnalysis pa : analyses) {
+      try {
+        pa.compute(contexts, index, facts);
+      } catch (RuntimeException | Error e) {
+        notes.add(new Notification(Severity.ERROR, Message.of("notification.project-analysis-failed",
+            pa.getClass().getSimpleName(), describe(e)), Optional.empty(), true));
+      }
+    }
+  }
 
+  private record FileOutcome(List<Finding> findings, List<Notification> notifications,
+      List<CallableSummary> callables, long lines) {}
+
+  /**
+   * Runs every rule on one file. A rule that throws (or whose analysis throws) loses its own
+   * findings for this file and becomes a notification naming rule and file; the other rules'
+   * findings stay. Findings are located and fingerprinted rule by rule, inside the same guard.
+   */
   private FileOutcome checkFile(FileContext file) {
-    List<FindingReporter.Report> reports = new ArrayList<>();
+    List<Finding> findings = new ArrayList<>();
     List<Notification> notes = new ArrayList<>();
     for (Rule rule : rules) {
       List<FindingReporter.Report> fromRule = new ArrayList<>();
       try {
         rule.check(file, fromRule::add);
-        reports.addAll(fromRule);
-      } catch (RuntimeException | StackOverflowError | LinkageError | AssertionError e) {
+        findings.addAll(toFindings(file, fromRule));
+      } catch (RuntimeException | Error e) {
         notes.add(new Notification(Severity.ERROR,
             Message.of("notification.rule-failed", rule.descriptor().id(), file.uri(), describe(e)),
-            Optional.of(new Location(file.uri(), new dev.plumbline.finding.SourceRange(1, 1, 1, 1))),
-            true));
+            Optional.of(new Location(file.uri(), new SourceRange(1, 1, 1, 1))), true));
       }
     }
     List<CallableSummary> callables = List.of();
@@ -185,11 +218,23 @@ public final class Scanner {
       }
     }
     listener.fileDone(file.uri());
-    return new FileOutcome(toFindings(file, reports), notes, callables);
+    return new FileOutcome(findings, notes, callables, lineCount(file.source().text()));
+  }
+
+  private static long lineCount(String text) {
+    return text.lines().count();
+  }
+
+  private static Notification fileFailure(String key, String uri, String detail) {
+    return new Notification(Severity.ERROR, Message.of(key, uri, detail),
+        Optional.of(new Location(uri, new SourceRange(1, 1, 1, 1))), true);
   }
 
   /** Locates and fingerprints reports, in a deterministic order, dropping exact duplicates. */
   private static List<Finding> toFindings(FileContext file, List<FindingReporter.Report> reports) {
+    if (reports.isEmpty()) {
+      return List.of();
+    }
     List<FindingReporter.Report> sorted = new ArrayList<>(reports);
     sorted.sort(Comparator
         .comparing((FindingReporter.Report r) -> file.locationOf(r.node()))
@@ -225,24 +270,64 @@ public final class Scanner {
     return nl < 0 ? s : s.substring(0, nl);
   }
 
-  private static <I, O> List<O> parallel(ExecutorService pool, List<I> inputs, Function<I, O> work) {
+  /**
+   * Applies {@code work} to every input on the pool and returns the results in input order, so
+   * later stages never see thread scheduling. A work item that throws is answered by
+   * {@code onFailure} instead: one file's failure never ends the scan.
+   */
+  private static <I, O> List<O> parallel(ExecutorService pool, List<I> inputs, Function<I, O> work,
+      BiFunction<I, Throwable, O> onFailure) {
     List<Future<O>> futures = new ArrayList<>();
     for (I input : inputs) {
-      futures.add(pool.submit(() -> work.apply(input)));
+      futures.add(pool.submit(() -> {
+        try {
+          return work.apply(input);
+        } catch (RuntimeException | Error e) {
+          return onFailure.apply(input, e);
+        }
+      }));
     }
     List<O> out = new ArrayList<>();
     for (Future<O> f : futures) {
-      try {
-        out.add(f.get());
-      } catch (InterruptedException e) {
-        Thread.currentThread().interrupt();
-        throw new IllegalStateException("scan interrupted", e);
-      } catch (ExecutionException e) {
-        // Work items catch their own failures; reaching here is a bug in the engine itself.
-        throw new IllegalStateException("internal error in a scan worker", e.getCause());
-      }
+      out.add(await(f));
     }
     return out;
+  }
+
+  private static <O> O await(Future<O> f) {
+    try {
+      return f.get();
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+      throw new IllegalStateException("scan interrupted", e);
+    } catch (ExecutionException e) {
+      // Work items answer their own failures; reaching here is a bug in the engine itself.
+      throw new IllegalStateException("internal error in a scan worker", e.getCause());
+    }
+  }
+
+  /** Runs {@code work} on a fresh thread with a large stack and waits for it. */
+  private static <O> O onLargeStack(Callable<O> work) {
+    FutureTask<O> task = new FutureTask<>(work);
+    Thread thread = new Thread(null, task, "plumbline-scan", WORKER_STACK_BYTES);
+    thread.setDaemon(true);
+    thread.start();
+    try {
+      return task.get();
+    } catch (InterruptedException e) {
+      thread.interrupt();
+      Thread.currentThread().interrupt();
+      throw new IllegalStateException("scan interrupted", e);
+    } catch (ExecutionException e) {
+      Throwable cause = e.getCause();
+      if (cause instanceof RuntimeException r) {
+        throw r;
+      }
+      if (cause instanceof Error err) {
+        throw err;
+      }
+      throw new IllegalStateException("internal error in the scan", cause);
+    }
   }
 
   private static ThreadFactory workerThreads() {

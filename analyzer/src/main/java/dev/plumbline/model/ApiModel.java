@@ -41,6 +41,8 @@ public final class ApiModel {
   private final Map<String, List<ApiType>> typesBySimpleName;
   private final Map<String, List<ApiMethod>> methodsByOwner;
   private final Set<String> packages;
+  /** {@link #selfAndSupertypes} of every listed type, computed once: it is asked for on every call. */
+  private final Map<String, List<String>> supertypeClosures;
 
   private ApiModel(List<ApiType> typeList, List<ApiMethod> methodList) {
     Map<String, ApiType> byName = new TreeMap<>();
@@ -71,6 +73,11 @@ public final class ApiModel {
     this.typesBySimpleName = copyLists(bySimple);
     this.methodsByOwner = copyLists(byOwner);
     this.packages = Set.copyOf(pkgs);
+    Map<String, List<String>> closures = new HashMap<>();
+    for (String name : this.types.keySet()) {
+      closures.put(name, List.copyOf(computeSelfAndSupertypes(name)));
+    }
+    this.supertypeClosures = Map.copyOf(closures);
   }
 
   private static <T> Map<String, List<T>> copyLists(Map<String, List<T>> in) {
@@ -185,6 +192,11 @@ public final class ApiModel {
 
   /** The type itself and all its listed supertypes, nearest first. */
   public List<String> selfAndSupertypes(String qualifiedName) {
+    List<String> known = supertypeClosures.get(qualifiedName);
+    return known != null ? known : List.of(qualifiedName);
+  }
+
+  private List<String> computeSelfAndSupertypes(String qualifiedName) {
     List<String> out = new ArrayList<>();
     Set<String> seen = new HashSet<>();
     Deque<String> work = new ArrayDeque<>();

@@ -4,8 +4,10 @@ import com.github.javaparser.JavaParser;
 import com.github.javaparser.ParseResult;
 import com.github.javaparser.ParserConfiguration;
 import com.github.javaparser.Problem;
+import com.github.javaparser.Range;
 import com.github.javaparser.TokenRange;
 import com.github.javaparser.ast.CompilationUnit;
+import com.github.javaparser.ast.comments.Comment;
 import dev.plumbline.discover.SourceFile;
 import dev.plumbline.finding.Location;
 import dev.plumbline.finding.Message;
@@ -120,8 +122,28 @@ public final class SourceParser {
       return new Outcome(Optional.empty(), out);
     }
     CompilationUnit unit = result.getResult().get();
+    dropTokens(unit);
     unit.setData(LineMap.KEY, lines);
     return new Outcome(Optional.of(new ParsedSource(file, text, unit, lines)), out);
+  }
+
+  /**
+   * Keeps each node's range and lets go of its tokens. JavaParser links every token of the file
+   * (whitespace included) into one list that any node's token range keeps alive; nothing here
+   * reads tokens, and they are most of a tree's memory, which matters because all trees of a
+   * project stay in memory until the scan ends (the project index refers to declarations).
+   */
+  private static void dropTokens(CompilationUnit unit) {
+    unit.walk(node -> {
+      Optional<Range> range = node.getRange();
+      node.setTokenRange(null);
+      range.ifPresent(node::setRange);
+    });
+    for (Comment comment : unit.getAllComments()) {
+      Optional<Range> range = comment.getRange();
+      comment.setTokenRange(null);
+      range.ifPresent(comment::setRange);
+    }
   }
 
   private static String firstLine(String s) {

@@ -42,6 +42,11 @@ public final class ExpressionTypes {
   private final ApiModel model;
   private final Map<Node, String> cache = new IdentityHashMap<>();
   private final Map<Node, Boolean> inProgress = new IdentityHashMap<>();
+  /** Bindings of calls and constructions: analyses ask again on every visit of a loop body. */
+  private final Map<MethodCallExpr, Optional<ApiMethod>> apiMethods = new IdentityHashMap<>();
+  private final Map<ObjectCreationExpr, Optional<ApiMethod>> apiConstructors = new IdentityHashMap<>();
+  private final Map<MethodCallExpr, Optional<ProjectIndex.ProjectMethod>> projectMethods =
+      new IdentityHashMap<>();
 
   public ExpressionTypes(SymbolTable symbols, ProjectIndex project) {
     this.symbols = symbols;
@@ -194,11 +199,19 @@ public final class ExpressionTypes {
       return resolved != null ? resolved : samePackageType(n);
     }
     if (scope instanceof FieldAccessExpr fa && looksQualified(fa)) {
-      String written = fa.toString();
+      String written = dottedName(fa);
       String resolved = symbols.types().resolveName(written);
       return resolved != null ? resolved : written;
     }
     return null;
+  }
+
+  /** {@code a.b.C} as written, from the identifiers (no printing, no comments). */
+  private static String dottedName(Expression e) {
+    if (e instanceof FieldAccessExpr f) {
+      return dottedName(f.getScope()) + "." + f.getNameAsString();
+    }
+    return ((NameExpr) e).getNameAsString();
   }
 
   /**
@@ -271,6 +284,15 @@ public final class ExpressionTypes {
 
   /** The library method a call binds to, if the receiver type is known and the model lists it. */
   public Optional<ApiMethod> apiMethod(MethodCallExpr call) {
+    Optional<ApiMethod> known = apiMethods.get(call);
+    if (known == null) {
+      known = computeApiMethod(call);
+      apiMethods.put(call, known);
+    }
+    return known;
+  }
+
+  private Optional<ApiMethod> computeApiMethod(MethodCallExpr call) {
     Optional<Receiver> receiver = receiverOf(call);
     if (receiver.isEmpty()) {
       return Optional.empty();
@@ -294,6 +316,15 @@ public final class ExpressionTypes {
 
   /** The library constructor a {@code new} expression binds to, if listed. */
   public Optional<ApiMethod> apiConstructor(ObjectCreationExpr creation) {
+    Optional<ApiMethod> known = apiConstructors.get(creation);
+    if (known == null) {
+      known = computeApiConstructor(creation);
+      apiConstructors.put(creation, known);
+    }
+    return known;
+  }
+
+  private Optional<ApiMethod> computeApiConstructor(ObjectCreationExpr creation) {
     String type = symbols.types().resolve(creation.getType());
     if (type == null || creation.getAnonymousClassBody().isPresent()) {
       return Optional.empty();
@@ -308,6 +339,15 @@ public final class ExpressionTypes {
 
   /** The project method a call binds to: exactly one candidate by receiver, name and arity. */
   public Optional<ProjectIndex.ProjectMethod> projectMethod(MethodCallExpr call) {
+    Optional<ProjectIndex.ProjectMethod> known = projectMethods.get(call);
+    if (known == null) {
+      known = computeProjectMethod(call);
+      projectMethods.put(call, known);
+    }
+    return known;
+  }
+
+  private Optional<ProjectIndex.ProjectMethod> computeProjectMethod(MethodCallExpr call) {
     Optional<Receiver> receiver = receiverOf(call);
     if (receiver.isEmpty()) {
       return Optional.empty();

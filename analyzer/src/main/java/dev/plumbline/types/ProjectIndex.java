@@ -1,6 +1,7 @@
 package dev.plumbline.types;
 
 import com.github.javaparser.ast.CompilationUnit;
+import com.github.javaparser.ast.body.BodyDeclaration;
 import com.github.javaparser.ast.body.CallableDeclaration;
 import com.github.javaparser.ast.body.ClassOrInterfaceDeclaration;
 import com.github.javaparser.ast.body.ConstructorDeclaration;
@@ -15,6 +16,7 @@ import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.Collection;
 import java.util.Deque;
+import java.util.HashMap;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -61,12 +63,19 @@ public final class ProjectIndex {
 
   private final ApiModel model;
   private final Map<String, ProjectType> types;
+  /** {@link #selfAndSupertypes} of every project type, computed once: it is asked for on every call. */
+  private final Map<String, List<String>> supertypeClosures;
 
   private final Set<String> typeNames;
 
   private ProjectIndex(ApiModel model, Map<String, ProjectType> types, Set<String> typeNames) {
     this.model = model;
     this.types = types;
+    Map<String, List<String>> closures = new HashMap<>();
+    for (String name : types.keySet()) {
+      closures.put(name, List.copyOf(computeSelfAndSupertypes(name)));
+    }
+    this.supertypeClosures = Map.copyOf(closures);
     this.typeNames = typeNames;
   }
 
@@ -108,8 +117,10 @@ public final class ProjectIndex {
           }
         }
         List<ProjectMethod> methods = new ArrayList<>();
-        for (CallableDeclaration<?> callable : type.findAll(CallableDeclaration.class,
-            c -> c.getParentNode().orElse(null) == type)) {
+        for (BodyDeclaration<?> member : type.getMembers()) {
+          if (!(member instanceof CallableDeclaration<?> callable)) {
+            continue;
+          }
           String returns = callable instanceof MethodDeclaration m ? resolver.resolve(m.getType())
               : qualified.get();
           methods.add(new ProjectMethod(qualified.get(), callable, returns));
@@ -141,6 +152,11 @@ public final class ProjectIndex {
 
   /** The type, its project supertypes and, through them, listed library supertypes. */
   public List<String> selfAndSupertypes(String name) {
+    List<String> known = supertypeClosures.get(name);
+    return known != null ? known : model.selfAndSupertypes(name);
+  }
+
+  private List<String> computeSelfAndSupertypes(String name) {
     List<String> out = new ArrayList<>();
     Set<String> seen = new HashSet<>();
     Deque<String> work = new ArrayDeque<>();

@@ -1,9 +1,12 @@
 package dev.plumbline.cli;
 
+import dev.plumbline.engine.Rule;
+import dev.plumbline.rules.BuiltInRules;
 import java.io.PrintStream;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
+import java.util.List;
 import picocli.CommandLine;
 
 /**
@@ -45,9 +48,21 @@ public final class Main {
   /** @param errIsTerminal whether {@code err} is a terminal (a progress bar instead of lines) */
   public static int run(String[] args, PrintStream out, PrintStream err, Path workingDirectory,
       boolean errIsTerminal) {
+    return run(args, out, err, workingDirectory, errIsTerminal, BuiltInRules.all());
+  }
+
+  /** As {@link #run(String[], PrintStream, PrintStream, Path)} with a given rule set (tests). */
+  static int run(String[] args, PrintStream out, PrintStream err, Path workingDirectory,
+      List<Rule> rules) {
+    return run(args, out, err, workingDirectory, false, rules);
+  }
+
+  private static int run(String[] args, PrintStream out, PrintStream err, Path workingDirectory,
+      boolean errIsTerminal, List<Rule> rules) {
     PrintWriter outWriter = new PrintWriter(new java.io.OutputStreamWriter(out, StandardCharsets.UTF_8), true);
     PrintWriter errWriter = new PrintWriter(new java.io.OutputStreamWriter(err, StandardCharsets.UTF_8), true);
-    Environment env = new Environment(out, outWriter, err, errWriter, workingDirectory, errIsTerminal);
+    Environment env = new Environment(out, outWriter, err, errWriter, workingDirectory, errIsTerminal,
+        List.copyOf(rules));
     CommandLine cli = new CommandLine(new PlumblineCommand(), new CommandFactory(env));
     cli.setOut(outWriter);
     cli.setErr(errWriter);
@@ -83,9 +98,9 @@ public final class Main {
     }
   }
 
-  /** Injected streams and working directory shared by the subcommands. */
+  /** Injected streams, working directory and the rules a scan runs, shared by the subcommands. */
   record Environment(PrintStream rawOut, PrintWriter out, PrintStream rawErr, PrintWriter err,
-      Path workingDirectory, boolean errIsTerminal) {}
+      Path workingDirectory, boolean errIsTerminal, List<Rule> rules) {}
 
   /** Creates subcommands with the environment injected. */
   private record CommandFactory(Environment env) implements CommandLine.IFactory {

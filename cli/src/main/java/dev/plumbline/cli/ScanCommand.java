@@ -9,6 +9,7 @@ import dev.plumbline.report.HtmlReport;
 import dev.plumbline.report.ReportContext;
 import dev.plumbline.report.SarifReport;
 import dev.plumbline.report.TextReport;
+import dev.plumbline.engine.Rule;
 import dev.plumbline.rules.BuiltInRules;
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -17,6 +18,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -75,7 +77,7 @@ final class ScanCommand implements Callable<Integer> {
     try (ScanProgress progress = new ScanProgress(env.errIsTerminal(), env.rawErr(), env.err(),
         () -> System.nanoTime() / 1_000_000)) {
       // The HTML report needs training entry points and test-set sizes for its verdicts.
-      outcome = run(options, progress, format == Format.html);
+      outcome = run(options, progress, format == Format.html, env.rules());
     }
     ReportContext ctx = new ReportContext(outcome.result(), BuiltInRules.messages(),
         env.workingDirectory(), PlumblineCommand.version(), outcome.baseline());
@@ -99,7 +101,13 @@ final class ScanCommand implements Callable<Integer> {
 
   static QualityGate.Outcome run(QualityGate.Options options, Scanner.ScanListener listener,
       boolean audit) {
-    QualityGate gate = new QualityGate(ApiModel.loadDefault(), BuiltInRules.all(),
+    return run(options, listener, audit, BuiltInRules.all());
+  }
+
+  /** As above with a given rule set (the environment's: tests plant failing rules there). */
+  static QualityGate.Outcome run(QualityGate.Options options, Scanner.ScanListener listener,
+      boolean audit, List<Rule> rules) {
+    QualityGate gate = new QualityGate(ApiModel.loadDefault(), rules,
         BuiltInRules.projectAnalyses(), listener);
     if (audit) {
       gate = gate.withAudit();

@@ -1,0 +1,207 @@
+package dev.plumbline.bench;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+import java.util.stream.Stream;
+import org.openjdk.jmh.results.RunResult;
+import org.openjdk.jmh.runner.Runner;
+import org.openjdk.jmh.runner.RunnerException;
+import org.openjdk.jmh.runner.options.ChainedOptionsBuilder;
+import org.openjdk.jmh.runner.options.OptionsBuilder;
+import org.openjdk.jmh.runner.options.VerboseMode;
+import org.openjdk.jmh.annotations.Mode;
+import java.util.concurrent.TimeUnit;
+
+/**
+ * Runs the benchmark: generates the inputs, times a bare parse against a full scan of each with
+ * JMH (one fresh JVM per operation and input, warm-up iterations first, median of the measured
+ * ones), and prints the three ratios with their targets.
+ *
+ * <pre>
+ *   bench/run                  # the README command; builds, then runs this class
+ *   bench/run --lines 50000    # smaller inputs, for a quick look
+ * </pre>
+ */
+public final class BenchmarkMain {
+  /** Targets from issue 8. */
+  static final double MAX_SCAN_TO_PARSE = 1.5;
+  static final double MAX_PEAK_RSS_MIB = 1024;
+  static final double MAX_4X_TO_1X = 4.4;
+
+  /** One input and how many iterations it gets: small inputs need more to be stable. */
+  record Input(String name, Path dir, int files, long lines, int warmups, int measurements) {}
+
+  /** The measurements of one input. */
+  record Measured(Input input, double parseMs, double scanMs, double parseRssMib, double scanRssMib) {
+    double ratio() {
+      return scanMs / parseMs;
+    }
+
+    double linesPerSecond() {
+      return input.lines() / (scanMs / 1000.0);
+    }
+  }
+
+  private BenchmarkMain() {}
+
+  public static void main(String[] args) throws RunnerException {
+    Path root = Path.of("").toAbsolutePath();
+    long lines = 200_000;
+    int jobs = Runtime.getRuntime().availableProcessors();
+    long seed = 8;
+    boolean verbose = false;
+    for (int i = 0; i < args.length; i++) {
+      switch (args[i]) {
+        case "--root" -> root = Path.of(args[++i]).toAbsolutePath();
+        case "--lines" -> lines = Long.parseLong(args[++i]);
+        case "--jobs" -> jobs = Integer.parseInt(args[++i]);
+        case "--seed" -> seed = Long.parseLong(args[++i]);
+        case "--verbose" -> verbose = true;
+        default -> {
+          System.err.println("usage: bench/run [--lines N] [--jobs N] [--seed S] [--verbose] [--root DIR]");
+          System.exit(2);
+        }
+      }
+    }
+    Path work = root.resolve("bench/target/work");
+    List<Path> corpus = List.of(root.resolve("test-corpus/src/main/java"),
+        root.resolve("test-corpus/demo-project/src/main/java"));
+    System.out.printf(Locale.ROOT, "plumbline benchmark: %d cores, %s, Java %s, %d jobs%n",
+        Runtime.getRuntime().availableProcessors(), System.getProperty("os.arch"),
+        System.getProperty("java.version"), jobs);
+
+    List<Input> inputs = new ArrayList<>();
+    Path corpusCopy = fresh(work.resolve("corpus"));
+    for (int i = 0; i < corpus.size(); i++) {
+      copyTree(corpus.get(i), corpusCopy.resolve("root" + i));
+    }
+    inputs.add(describe("test corpus", corpusCopy, 5, 10));
+    CorpusProjectGenerator generator = new CorpusProjectGenerator(corpus, seed);
+    Path one = fresh(work.resolve("generated-1x"));
+    generator.generate(one, lines);
+    inputs.add(describe("generated 1x", one, 2, 3));
+    Path four = fresh(work.resolve("generated-4x"));
+    generator.generate(four, 4 * lines);
+    inputs.add(describe("generated 4x", four, 1, 3));
+
+    List<Measured> results = new ArrayList<>();
+    for (Input in : inputs) {
+      System.out.printf(Locale.ROOT, "measuring %s (%d files, %d lines)...%n", in.name(), in.files(), in.lines());
+      results.add(measure(in, jobs, verbose));
+    }
+    String report = report(results, jobs);
+    System.out.print(report);
+    try {
+      Files.writeString(work.resolve("results.txt"), report, StandardCharsets.UTF_8);
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+
+  private static Measured measure(Input in, int jobs, boolean verbose) throws RunnerException {
+    ChainedOptionsBuilder options = new OptionsBuilder()
+        .include(ScanBenchmark.class.getName() + "\\.(parse|scan)$")
+        .param("input", in.dir().toString())
+        .param("jobs", String.valueOf(jobs))
+        .mode(Mode.SingleShotTime)
+        .timeUnit(TimeUnit.MILLISECONDS)
+        .warmupIterations(in.warmups())
+        .measurementIterations(in.measurements())
+        .forks(1)
+        .jvmArgs(Launcher.JVM_OPTIONS.toArray(String[]::new))
+        .addProfiler(PeakRssProfiler.class)
+        .shouldFailOnError(true)
+        .verbosity(verbose ? VerboseMode.NORMAL : VerboseMode.SILENT);
+    double parseMs = 0;
+    double scanMs = 0;
+    double parseRss = 0;
+    double scanRss = 0;
+    for (RunResult r : new Runner(options.build()).run()) {
+      double median = r.getPrimaryResult().getStatistics().getPercentile(50);
+      double rss = r.getSecondaryResults().get(PeakRssProfiler.LABEL).getScore();
+      if (r.getParams().getBenchmark().endsWith(".parse")) {
+        parseMs = median;
+        parseRss = rss;
+      } else {
+        scanMs = median;
+        scanRss = rss;
+      }
+    }
+    return new Measured(in, parseMs, scanMs, parseRss, scanRss);
+  }
+
+  static String report(List<Measured> results, int jobs) {
+    StringBuilder out = new StringBuilder();
+    out.append(String.format(Locale.ROOT, "%n%-13s %6s %8s %9s %9s %7s %10s %10s %11s%n", "input", "files",
+        "lines", "parse ms", "scan ms", "ratio", "parse RSS", "scan RSS", "lines/s"));
+    for (Measured m : results) {
+      out.append(String.format(Locale.ROOT, "%-13s %6d %8d %9.0f %9.0f %7.2f %6.0f MiB %6.0f MiB %11.0f%n",
+          m.input().name(), m.input().files(), m.input().lines(), m.parseMs(), m.scanMs(), m.ratio(),
+          m.parseRssMib(), m.scanRssMib(), m.linesPerSecond()));
+    }
+    Measured one = results.get(1);
+    Measured four = results.get(2);
+    double scaling = four.scanMs() / one.scanMs();
+    out.append(String.format(Locale.ROOT, "%nTimes are medians of single-shot runs with %d worker threads;"
+        + " RSS is the peak of the measuring JVM (VmHWM).%n", jobs));
+    out.append(check("scan/parse time at 1x", one.ratio(), MAX_SCAN_TO_PARSE, "%.2f"));
+    out.append(check("peak RSS of the scan at 1x (MiB)", one.scanRssMib(), MAX_PEAK_RSS_MIB, "%.0f"));
+    out.append(check("scan time 4x/1x", scaling, MAX_4X_TO_1X, "%.2f"));
+    out.append(String.format(Locale.ROOT, "  (for reference: scan/parse at 4x %.2f, parse time 4x/1x %.2f,"
+        + " corpus scan/parse %.2f)%n", four.ratio(), four.parseMs() / one.parseMs(), results.get(0).ratio()));
+    return out.toString();
+  }
+
+  private static String check(String what, double value, double max, String format) {
+    return String.format(Locale.ROOT, "%-34s " + format + "  (target at most " + format + ")  %s%n",
+        what, value, max, value <= max ? "met" : "MISSED");
+  }
+
+  private static Input describe(String name, Path dir, int warmups, int measurements) {
+    int files = 0;
+    long lines = 0;
+    try (Stream<Path> walk = Files.walk(dir)) {
+      for (Path p : walk.filter(f -> f.toString().endsWith(".java")).toList()) {
+        files++;
+        lines += Files.readString(p, StandardCharsets.UTF_8).lines().count();
+      }
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    return new Input(name, dir, files, lines, warmups, measurements);
+  }
+
+  private static Path fresh(Path dir) {
+    try {
+      if (Files.exists(dir)) {
+        try (Stream<Path> walk = Files.walk(dir)) {
+          for (Path p : walk.sorted(Comparator.reverseOrder()).toList()) {
+            Files.delete(p);
+          }
+        }
+      }
+      return Files.createDirectories(dir);
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+
+  private static void copyTree(Path from, Path to) {
+    try (Stream<Path> walk = Files.walk(from)) {
+      for (Path p : walk.filter(f -> f.toString().endsWith(".java")).toList()) {
+        Path target = to.resolve(from.relativize(p).toString());
+        Files.createDirectories(target.getParent());
+        Files.copy(p, target);
+      }
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+}
