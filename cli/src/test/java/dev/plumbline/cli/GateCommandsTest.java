@@ -138,6 +138,33 @@ class GateCommandsTest {
   }
 
   @Test
+  void configuredTestDataNamesMarkTestRows(@TempDir Path dir) throws IOException {
+    // 'springCohort' says nothing about its purpose by itself; the configuration says it holds
+    // the project's test rows, so fitting a normalizer on it is a (name-based) leak.
+    Files.writeString(dir.resolve("Cohorts.java"), """
+        package demo;
+        import org.nd4j.linalg.dataset.DataSet;
+        import org.nd4j.linalg.dataset.api.iterator.DataSetIterator;
+        import org.nd4j.linalg.dataset.api.preprocessor.NormalizerStandardize;
+        class Cohorts {
+          NormalizerStandardize prepare(DataSetIterator source) {
+            DataSet springCohort = source.next();
+            NormalizerStandardize n = new NormalizerStandardize();
+            n.fit(springCohort);
+            return n;
+          }
+        }
+        """);
+    MainTest.Run plain = run(dir, "scan", ".");
+    assertEquals(0, plain.code(), plain.out());
+    Files.writeString(dir.resolve("names.yaml"), "test-data-names: [springCohort]\n");
+    MainTest.Run named = run(dir, "scan", ".", "--config", "names.yaml");
+    assertEquals(1, named.code(), named.out());
+    assertTrue(named.out().startsWith("Cohorts.java:9:5: warning: "), named.out());
+    assertTrue(named.out().contains("[leak.fit-on-test]"), named.out());
+  }
+
+  @Test
   void badConfigurationOrBaselineIsExitTwoWithFileAndLine(@TempDir Path dir) throws IOException {
     Files.writeString(dir.resolve("Sensors.java"), SENSORS.formatted(""));
     Files.writeString(dir.resolve("bad.yaml"), "version: 1\nrules:\n  leak.preprocessing-before-split:\n    level: note\n");

@@ -6,6 +6,7 @@ import com.github.javaparser.ast.expr.MethodCallExpr;
 import com.github.javaparser.ast.expr.NameExpr;
 import com.github.javaparser.ast.expr.ObjectCreationExpr;
 import com.github.javaparser.ast.expr.StringLiteralExpr;
+import dev.plumbline.engine.AnalysisSettings;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -32,6 +33,20 @@ final class DataNames {
       "temporal", "series", "sequence", "sequences");
 
   private DataNames() {}
+
+  /**
+   * The held-out role these names say: test when one of them is exactly a name the project's
+   * configuration lists for test data ({@code test-data-names}), else what their words say, if
+   * they say exactly one purpose.
+   */
+  static Optional<Role> heldOutRole(List<String> names, AnalysisSettings settings) {
+    for (String name : names) {
+      if (settings.marksTestData(name)) {
+        return Optional.of(Role.TEST);
+      }
+    }
+    return heldOutRole(names);
+  }
 
   /** The held-out role the words of these names say, if they say exactly one. */
   static Optional<Role> heldOutRole(List<String> names) {

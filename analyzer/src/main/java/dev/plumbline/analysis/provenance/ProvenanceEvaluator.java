@@ -232,13 +232,18 @@ final class ProvenanceEvaluator {
         && value.lineages().iterator().next().site() == unwrap(source)) {
       return named(value, List.of(name), site);
     }
+    if (value.onlyWhole() && a.file.settings().marksTestData(name)) {
+      // The project's configuration says this name holds test rows; with no split evidence to
+      // the contrary, take its word (still a name-based judgement, reported as such).
+      return named(value, List.of(name), site);
+    }
     return value;
   }
 
   /** Applies what names say to rows that just entered with nothing else known. */
   private DataValue named(DataValue fresh, List<String> names, Node site) {
     DataValue out = fresh;
-    Optional<Role> role = DataNames.heldOutRole(names);
+    Optional<Role> role = DataNames.heldOutRole(names, a.file.settings());
     if (role.isPresent() && out.onlyWhole()) {
       out = out.withRoles(EnumSet.of(role.get()), EnumSet.of(role.get()), site);
     }

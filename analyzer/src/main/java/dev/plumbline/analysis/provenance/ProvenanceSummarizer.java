@@ -6,6 +6,7 @@ import com.github.javaparser.ast.body.FieldDeclaration;
 import com.github.javaparser.ast.body.TypeDeclaration;
 import com.github.javaparser.ast.body.VariableDeclarator;
 import com.github.javaparser.ast.expr.MethodCallExpr;
+import dev.plumbline.engine.AnalysisSettings;
 import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.ProjectFacts;
@@ -275,7 +276,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
           if (values.isEmpty()) {
             continue;
           }
-          ProvenanceSummaries.FieldSummary s = fieldSummary(d, values, sites);
+          ProvenanceSummaries.FieldSummary s = fieldSummary(d, values, sites, file.settings());
           if (s != null && summaries.putField(d, s)) {
             changed.add(d.getNameAsString());
           }
@@ -286,7 +287,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
   }
 
   private static ProvenanceSummaries.FieldSummary fieldSummary(VariableDeclarator d,
-      List<DataValue> values, List<Node> sites) {
+      List<DataValue> values, List<Node> sites, AnalysisSettings settings) {
     EnumSet<Role> roles = EnumSet.noneOf(Role.class);
     Set<Role> evidenced = EnumSet.noneOf(Role.class);
     Set<Role> guessedOnly = EnumSet.noneOf(Role.class);
@@ -295,7 +296,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     for (int i = 0; i < values.size(); i++) {
       DataValue v = values.get(i);
       if (v == null || v.kind() != DataValue.Kind.DATA || v.holds(Role.ARGUMENT)) {
-        Optional<Role> named = DataNames.heldOutRole(List.of(d.getNameAsString()));
+        Optional<Role> named = DataNames.heldOutRole(List.of(d.getNameAsString()), settings);
         roles.add(named.orElse(Role.WHOLE));
         named.ifPresent(r -> {
           guessedOnly.add(r);
