@@ -48,6 +48,24 @@ public final class FileContext {
     this.types = new ExpressionTypes(new SymbolTable(source.unit(), resolver), project);
   }
 
+  private FileContext(FileContext from) {
+    this.source = from.source;
+    this.settings = from.settings;
+    this.project = from.project;
+    this.projectFacts = from.projectFacts;
+    this.types = from.types;
+    this.graphs = from.graphs;
+  }
+
+  /**
+   * A context for the same file that keeps its type facts and control-flow graphs, which do not
+   * depend on project facts, and computes every analysis afresh: an analysis computed while the
+   * project analyses were still filling the project facts may rest on partial facts.
+   */
+  public FileContext withFreshAnalyses() {
+    return new FileContext(this);
+  }
+
   public ParsedSource source() {
     return source;
   }

@@ -10,5 +10,14 @@ import java.util.List;
  * not depend on thread scheduling or on the order of {@code files} beyond their given sort order.
  */
 public interface ProjectAnalysis {
-  void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out);
+  /**
+   * Computes the analysis. {@code workers} may run independent items in parallel; the result
+   * must be the same for any {@code workers}.
+   */
+  void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out, Workers workers);
+
+  /** Computes the analysis on the calling thread alone. */
+  default void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out) {
+    compute(files, index, out, Workers.SEQUENTIAL);
+  }
 }

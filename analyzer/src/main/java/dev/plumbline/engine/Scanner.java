@@ -129,12 +129,14 @@ public final class Scanner {
       if (audit) {
         analyses.add(new RowCountSummaries());
       }
-      runProjectAnalyses(pool, analyses, parsed, index, facts, request, notes);
-      // Fresh contexts per file for rules: project analyses may have filled the first ones.
-      List<FileOutcome> perFile = parallel(pool, parsed,
-          p -> checkFile(new FileContext(p, index, facts, request.settings())),
-          (p, e) -> new FileOutcome(List.of(), List.of(fileFailure("notification.file-analysis-failed",
-              p.file().uri(), describe(e))), List.of(), lineCount(p.text())));
+      List<FileContext> contexts =
+          runProjectAnalyses(pool, analyses, parsed, index, facts, request, notes);
+      List<Integer> order = java.util.stream.IntStream.range(0, parsed.size()).boxed().toList();
+      List<FileOutcome> perFile = parallel(pool, order,
+          i -> checkFile(contexts.get(i) != null ? contexts.get(i).withFreshAnalyses()
+              : new FileContext(parsed.get(i), index, facts, request.settings())),
+          (i, e) -> new FileOutcome(List.of(), List.of(fileFailure("notification.file-analysis-failed",
+              parsed.get(i).file().uri(), describe(e))), List.of(), lineCount(parsed.get(i).text())));
       List<Finding> findings = new ArrayList<>();
       List<CallableSummary> callables = new ArrayList<>();
       Map<String, String> sources = new TreeMap<>();
@@ -165,23 +167,73 @@ public final class Scanner {
     }
   }
 
-  private void runProjectAnalyses(ExecutorService pool, List<ProjectAnalysis> analyses,
+  /**
+   * Runs the project analyses and returns the contexts they used, one per parsed file (null
+   * where a context could not be made), so that rules reuse their type facts and graphs.
+   */
+  private List<FileContext> runProjectAnalyses(ExecutorService pool, List<ProjectAnalysis> analyses,
       List<ParsedSource> parsed, ProjectIndex index, ProjectFacts facts, ScanRequest request,
       List<Notification> notes) {
-    if (analyses.isEmpty()) {
-      return;
-    }
     List<FileContext> contexts = parallel(pool, parsed,
-        p -> new FileContext(p, index, facts, request.settings()), (p, e) -> null)
-        .stream().filter(Objects::nonNull).toList();
+        p -> new FileContext(p, index, facts, request.settings()), (p, e) -> null);
+    if (analyses.isEmpty()) {
+      return contexts;
+    }
+    List<FileContext> usable = contexts.stream().filter(Objects::nonNull).toList();
+    Workers workers = onPool(pool);
     for (ProjectAnalysis pa : analyses) {
       try {
-        pa.compute(contexts, index, facts);
+        pa.compute(usable, index, facts, workers);
       } catch (RuntimeException | Error e) {
         notes.add(new Notification(Severity.ERROR, Message.of("notification.project-analysis-failed",
             pa.getClass().getSimpleName(), describe(e)), Optional.empty(), true));
       }
     }
+    return contexts;
+  }
+
+  /**
+   * Workers for project analyses on the scan's pool. Called from the scan thread, never from a
+   * pool thread, so waiting for the items cannot starve the pool.
+   */
+  private static Workers onPool(ExecutorService pool) {
+    return new Workers() {
+      @Override
+      public <I, O> List<O> map(List<I> inputs, Function<I, O> work) {
+        if (inputs.size() < 2) {
+          return Workers.SEQUENTIAL.map(inputs, work);
+        }
+        List<Future<O>> futures = new ArrayList<>(inputs.size());
+        for (I input : inputs) {
+          futures.add(pool.submit(() -> work.apply(input)));
+        }
+        List<O> out = new ArrayList<>(inputs.size());
+        Throwable first = null;
+        for (Future<O> f : futures) {
+          try {
+            out.add(f.get());
+          } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("scan interrupted", e);
+          } catch (ExecutionException e) {
+            if (first == null) {
+              first = e.getCause();
+            }
+            out.add(null);
+          }
+        }
+        if (first instanceof RuntimeException r) {
+          throw r;
+        }
+        if (first instanceof Error err) {
+          throw err;
+        }
+        if (first != null) {
+          throw new IllegalStateException(first);
+        }
+        return out;
+      }
+    };
   }
 
   private record FileOutcome(List<Finding> findings, List<Notification> notifications,

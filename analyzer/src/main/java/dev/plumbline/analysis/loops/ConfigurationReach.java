@@ -10,6 +10,7 @@ import com.github.javaparser.ast.expr.ObjectCreationExpr;
 import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.ProjectFacts;
+import dev.plumbline.engine.Workers;
 import dev.plumbline.flow.ControlFlowGraph;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
@@ -44,7 +45,8 @@ public final class ConfigurationReach implements ProjectAnalysis {
   }
 
   @Override
-  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out) {
+  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out,
+      Workers workers) {
     Parameters result = new Parameters();
     out.put(Parameters.class, result);
     List<FileContext> owners = new ArrayList<>();

@@ -70,20 +70,45 @@ public final class ProvenanceSummaries {
     }
   }
 
-  private final Map<Node, MethodSummary> methods = new IdentityHashMap<>();
+  /**
+   * One method's summary. The map of slots is filled before summarizing starts and never changes
+   * shape afterwards, so that methods of independent components can be summarized on several
+   * threads while others read finished summaries.
+   */
+  private static final class Slot {
+    volatile MethodSummary summary;
+  }
+
+  private final Map<Node, Slot> methods = new IdentityHashMap<>();
   private final Map<Node, FieldSummary> fields = new IdentityHashMap<>();
 
   public MethodSummary method(Node declaration) {
-    return methods.get(declaration);
+    Slot slot = methods.get(declaration);
+    return slot == null ? null : slot.summary;
   }
 
   public FieldSummary field(Node declarator) {
     return fields.get(declarator);
   }
 
-  /** Records a method summary; returns whether it differs from the previous one. */
+  /** Makes room for the summaries of these methods; call before summarizing, on one thread. */
+  void prepare(List<? extends Node> declarations) {
+    for (Node d : declarations) {
+      methods.putIfAbsent(d, new Slot());
+    }
+  }
+
+  /**
+   * Records a method summary; returns whether it differs from the previous one. The method must
+   * have been {@linkplain #prepare prepared}; only one thread writes a given method's summary.
+   */
   boolean put(Node declaration, MethodSummary summary) {
-    MethodSummary old = methods.put(declaration, summary);
+    Slot slot = methods.get(declaration);
+    if (slot == null) {
+      throw new IllegalStateException("summary slot missing for " + declaration.getClass().getSimpleName());
+    }
+    MethodSummary old = slot.summary;
+    slot.summary = summary;
     return !summary.equals(old);
   }
 

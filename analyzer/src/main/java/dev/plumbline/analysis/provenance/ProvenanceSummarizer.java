@@ -10,10 +10,12 @@ import dev.plumbline.engine.AnalysisSettings;
 import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.ProjectFacts;
+import dev.plumbline.engine.Workers;
 import dev.plumbline.flow.ControlFlowGraph;
 import dev.plumbline.types.ProjectIndex;
 import java.util.ArrayDeque;
 import java.util.ArrayList;
+import java.util.Collections;
 import java.util.Deque;
 import java.util.EnumSet;
 import java.util.IdentityHashMap;
@@ -35,8 +37,12 @@ import java.util.TreeSet;
  * not settled by then its last summaries stand (they may miss uses, which only makes the rules say
  * less). Field summaries depend on method summaries and the other way round, so after a pass the
  * methods that read a field whose summary changed (or call a method whose summary changed) are
- * summarized again, until field summaries settle, at most {@value #FIELD_ROUNDS} passes. Deterministic:
- * methods are visited in the files' sorted order and source order within a file.
+ * summarized again, until field summaries settle, at most {@value #FIELD_ROUNDS} passes.
+ *
+ * <p>Components are grouped in levels (a component calls only components of lower levels); the
+ * components of one level are summarized in parallel, since none reads another's summaries.
+ * Deterministic: each summary depends only on lower levels and the fields of the previous pass,
+ * and field writes are gathered in the files' sorted order and source order within a file.
  */
 public final class ProvenanceSummarizer implements ProjectAnalysis {
   static final int ROUNDS_PER_COMPONENT = 4;
@@ -48,6 +54,8 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     private final CallableDeclaration<?> declaration;
     private final ControlFlowGraph graph;
     private final int order;
+    /** The field writes found when this method was last summarized; its summarizing thread's. */
+    private List<ProvenanceFacts.FieldWrite> writes = List.of();
 
     Method(FileContext file, CallableDeclaration<?> declaration, ControlFlowGraph graph, int order) {
       this.file = file;
@@ -70,43 +78,106 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
   }
 
   @Override
-  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out) {
+  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out,
+      Workers workers) {
     ProvenanceSummaries summaries = new ProvenanceSummaries();
     out.put(ProvenanceSummaries.class, summaries);
     List<Method> methods = methods(files);
-    CallGraph callGraph = new CallGraph(methods);
-    List<List<Method>> components = callGraph.componentsCalleesFirst();
-    Map<Node, List<ProvenanceFacts.FieldWrite>> writes = new IdentityHashMap<>();
+    summaries.prepare(methods.stream().map(Method::declaration).toList());
+    CallGraph callGraph = new CallGraph(methods, workers);
+    List<List<List<Method>>> levels = callGraph.levels();
     Set<String> changedFields = null; // null: first round, summarize everything
     for (int round = 0; round < FIELD_ROUNDS; round++) {
-      Set<Method> changedMethods = java.util.Collections.newSetFromMap(new IdentityHashMap<>());
-      for (List<Method> component : components) {
-        if (changedFields != null && !affected(component, changedFields, changedMethods, callGraph)) {
-          continue; // reads no field that changed and calls nothing that changed: same summary
-        }
-        for (Method m : component) {
-          if (summaries.method(m.declaration()) == null) {
-            summaries.put(m.declaration(), ProvenanceSummaries.MethodSummary.PENDING);
+      Set<Method> changedMethods = Collections.newSetFromMap(new IdentityHashMap<>());
+      for (List<List<Method>> level : levels) {
+        List<List<Method>> due = new ArrayList<>();
+        for (List<Method> component : level) {
+          if (changedFields == null || affected(component, changedFields, changedMethods, callGraph)) {
+            due.add(component);
           }
         }
-        for (int i = 0; i < ROUNDS_PER_COMPONENT; i++) {
-          boolean changed = false;
-          for (Method m : component) {
-            if (summarize(m, summaries, writes)) {
-              changed = true;
-              changedMethods.add(m);
-            }
-          }
-          if (!changed || component.size() == 1 && !calls(component.get(0), component.get(0))) {
-            break;
-          }
+        // Components of one level call none of each other, so they are summarized in parallel;
+        // components sharing a file go to one worker, as a file context serves one thread.
+        for (List<Method> changed : workers.map(byFiles(due),
+            unit -> summarizeAll(unit, summaries, callGraph))) {
+          changedMethods.addAll(changed);
         }
       }
-      changedFields = updateFields(files, summaries, writes);
+      changedFields = updateFields(files, methods, summaries);
       if (changedFields.isEmpty()) {
         break;
       }
     }
+  }
+
+  /** Summarizes components in order; returns the methods whose summary changed. */
+  private static List<Method> summarizeAll(List<List<Method>> components,
+      ProvenanceSummaries summaries, CallGraph callGraph) {
+    List<Method> changedMethods = new ArrayList<>();
+    for (List<Method> component : components) {
+      for (Method m : component) {
+        if (summaries.method(m.declaration()) == null) {
+          summaries.put(m.declaration(), ProvenanceSummaries.MethodSummary.PENDING);
+        }
+      }
+      boolean recursive = component.size() > 1
+          || callGraph.callees(component.get(0)).contains(component.get(0));
+      for (int i = 0; i < ROUNDS_PER_COMPONENT; i++) {
+        boolean changed = false;
+        for (Method m : component) {
+          if (summarize(m, summaries)) {
+            changed = true;
+            if (!changedMethods.contains(m)) {
+              changedMethods.add(m);
+            }
+          }
+        }
+        if (!changed || !recursive) {
+          break;
+        }
+      }
+    }
+    return changedMethods;
+  }
+
+  /**
+   * Groups components into work units so that no file has methods in two units; units and the
+   * components in each keep the given order.
+   */
+  private static List<List<List<Method>>> byFiles(List<List<Method>> components) {
+    List<List<List<Method>>> units = new ArrayList<>();
+    Map<FileContext, Integer> unitOf = new IdentityHashMap<>();
+    for (List<Method> component : components) {
+      TreeSet<Integer> joined = new TreeSet<>();
+      for (Method m : component) {
+        Integer u = unitOf.get(m.file());
+        if (u != null) {
+          joined.add(u);
+        }
+      }
+      int target;
+      if (joined.isEmpty()) {
+        target = units.size();
+        units.add(new ArrayList<>());
+      } else {
+        target = joined.first();
+        for (int u : joined.tailSet(target, false)) {
+          units.get(target).addAll(units.get(u));
+          units.set(u, List.of());
+          for (List<Method> moved : units.get(target)) {
+            for (Method m : moved) {
+              unitOf.put(m.file(), target);
+            }
+          }
+        }
+      }
+      units.get(target).add(component);
+      for (Method m : component) {
+        unitOf.put(m.file(), target);
+      }
+    }
+    units.removeIf(List::isEmpty);
+    return units;
   }
 
   /** Whether a component must be summarized again after some fields' summaries changed. */
@@ -127,12 +198,6 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     return false;
   }
 
-  private static boolean calls(Method from, Method to) {
-    return from.declaration().findFirst(MethodCallExpr.class,
-        c -> from.file().types().projectMethod(c).map(pm -> pm.declaration() == to.declaration())
-            .orElse(false)).isPresent();
-  }
-
   private static List<Method> methods(List<FileContext> files) {
     List<Method> out = new ArrayList<>();
     for (FileContext file : files) {
@@ -147,20 +212,14 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
   }
 
   /** Summarizes one method; returns whether its summary changed. */
-  private static boolean summarize(Method m, ProvenanceSummaries summaries,
-      Map<Node, List<ProvenanceFacts.FieldWrite>> writes) {
+  private static boolean summarize(Method m, ProvenanceSummaries summaries) {
     ProvenanceFacts facts = new ProvenanceFacts();
     if (!ProvenanceAnalysis.analyzeGraph(m.file(), m.graph(), ProvenanceAnalysis.Mode.SUMMARY, facts)) {
       // No fixed point: callers treat its result as unknown rows and know none of its uses.
       return summaries.put(m.declaration(), new ProvenanceSummaries.MethodSummary(null, List.of(), true));
     }
     // This method's writes replace the ones it made when last summarized.
-    for (List<ProvenanceFacts.FieldWrite> list : writes.values()) {
-      list.removeIf(w -> w.graph() == m.graph());
-    }
-    for (ProvenanceFacts.FieldWrite w : facts.fieldWrites()) {
-      writes.computeIfAbsent(w.field(), k -> new ArrayList<>()).add(w);
-    }
+    m.writes = List.copyOf(facts.fieldWrites());
     String owner = m.declaration().findAncestor(TypeDeclaration.class)
         .map(t -> t.getNameAsString() + ".").orElse("");
     String where = " in " + owner + m.declaration().getNameAsString();
@@ -257,8 +316,14 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
    * the fields whose summary changed. A write of untracked rows or of a caller's argument counts
    * as whatever the field's name says, else whole rows.
    */
-  private static Set<String> updateFields(List<FileContext> files, ProvenanceSummaries summaries,
-      Map<Node, List<ProvenanceFacts.FieldWrite>> writes) {
+  private static Set<String> updateFields(List<FileContext> files, List<Method> methods,
+      ProvenanceSummaries summaries) {
+    Map<Node, List<ProvenanceFacts.FieldWrite>> writes = new IdentityHashMap<>();
+    for (Method m : methods) {
+      for (ProvenanceFacts.FieldWrite w : m.writes) {
+        writes.computeIfAbsent(w.field(), k -> new ArrayList<>()).add(w);
+      }
+    }
     Set<String> changed = new TreeSet<>();
     for (FileContext file : files) {
       for (FieldDeclaration fd : file.source().unit().findAll(FieldDeclaration.class)) {
@@ -329,21 +394,65 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     private final Map<Node, Method> byDeclaration = new IdentityHashMap<>();
     private final Map<Method, List<Method>> callees = new IdentityHashMap<>();
 
-    CallGraph(List<Method> methods) {
+    CallGraph(List<Method> methods, Workers workers) {
       this.methods = methods;
       for (Method m : methods) {
         byDeclaration.put(m.declaration(), m);
       }
+      // Methods come file by file; each file's calls are resolved by one worker.
+      List<List<Method>> byFile = new ArrayList<>();
       for (Method m : methods) {
-        List<Method> out = new ArrayList<>();
-        for (MethodCallExpr call : m.declaration().findAll(MethodCallExpr.class)) {
-          m.file().types().projectMethod(call)
-              .map(pm -> byDeclaration.get(pm.declaration()))
-              .filter(callee -> !out.contains(callee))
-              .ifPresent(out::add);
+        if (byFile.isEmpty() || byFile.get(byFile.size() - 1).get(0).file() != m.file()) {
+          byFile.add(new ArrayList<>());
         }
-        callees.put(m, out);
+        byFile.get(byFile.size() - 1).add(m);
       }
+      List<List<List<Method>>> resolved = workers.map(byFile, ms -> ms.stream().map(this::resolve).toList());
+      for (int f = 0; f < byFile.size(); f++) {
+        for (int i = 0; i < byFile.get(f).size(); i++) {
+          callees.put(byFile.get(f).get(i), resolved.get(f).get(i));
+        }
+      }
+    }
+
+    private List<Method> resolve(Method m) {
+      List<Method> out = new ArrayList<>();
+      for (MethodCallExpr call : m.declaration().findAll(MethodCallExpr.class)) {
+        m.file().types().projectMethod(call)
+            .map(pm -> byDeclaration.get(pm.declaration()))
+            .filter(callee -> !out.contains(callee))
+            .ifPresent(out::add);
+      }
+      return out;
+    }
+
+    /**
+     * The components grouped by level, callees first: a component's level is one more than the
+     * highest level of a component it calls, so components of one level call none of each other.
+     */
+    List<List<List<Method>>> levels() {
+      List<List<Method>> components = componentsCalleesFirst();
+      Map<Method, Integer> levelOf = new IdentityHashMap<>();
+      List<List<List<Method>>> levels = new ArrayList<>();
+      for (List<Method> component : components) {
+        int level = 0;
+        for (Method m : component) {
+          for (Method callee : callees.get(m)) {
+            Integer l = levelOf.get(callee);
+            if (l != null) {
+              level = Math.max(level, l + 1); // null: the component itself, not yet placed
+            }
+          }
+        }
+        for (Method m : component) {
+          levelOf.put(m, level);
+        }
+        while (levels.size() <= level) {
+          levels.add(new ArrayList<>());
+        }
+        levels.get(level).add(component);
+      }
+      return levels;
     }
 
     List<Method> callees(Method m) {
@@ -354,7 +463,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
       Map<Method, Integer> indexOf = new IdentityHashMap<>();
       Map<Method, Integer> low = new IdentityHashMap<>();
       Deque<Method> stack = new ArrayDeque<>();
-      Set<Method> onStack = java.util.Collections.newSetFromMap(new IdentityHashMap<>());
+      Set<Method> onStack = Collections.newSetFromMap(new IdentityHashMap<>());
       List<List<Method>> out = new ArrayList<>();
       int[] counter = {0};
       for (Method m : methods) {

@@ -4,6 +4,7 @@ import com.github.javaparser.ast.expr.MethodCallExpr;
 import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.ProjectFacts;
+import dev.plumbline.engine.Workers;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
 import dev.plumbline.types.ProjectIndex;
@@ -32,16 +33,21 @@ public final class ProjectSeeding implements ProjectAnalysis {
   }
 
   @Override
-  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out) {
+  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out,
+      Workers workers) {
     Set<String> scopes = new TreeSet<>();
-    for (FileContext file : files) {
-      for (MethodCallExpr call : file.source().unit().findAll(MethodCallExpr.class)) {
-        Optional<ApiMethod> m = file.types().apiMethod(call);
-        if (m.isPresent() && m.get().effect() == Effect.SEED && m.get().attribute("scope") != null) {
-          scopes.add(m.get().attribute("scope"));
-        }
+    workers.map(files, ProjectSeeding::seededIn).forEach(scopes::addAll);
+    out.put(SeededScopes.class, new SeededScopes(scopes));
+  }
+
+  private static Set<String> seededIn(FileContext file) {
+    Set<String> scopes = new TreeSet<>();
+    for (MethodCallExpr call : file.source().unit().findAll(MethodCallExpr.class)) {
+      Optional<ApiMethod> m = file.types().apiMethod(call);
+      if (m.isPresent() && m.get().effect() == Effect.SEED && m.get().attribute("scope") != null) {
+        scopes.add(m.get().attribute("scope"));
       }
     }
-    out.put(SeededScopes.class, new SeededScopes(scopes));
+    return scopes;
   }
 }

@@ -6,6 +6,7 @@ import com.github.javaparser.ast.body.MethodDeclaration;
 import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.ProjectFacts;
+import dev.plumbline.engine.Workers;
 import dev.plumbline.types.ProjectIndex;
 import java.util.Collections;
 import java.util.IdentityHashMap;
@@ -29,7 +30,8 @@ public final class RowCountSummaries implements ProjectAnalysis {
   }
 
   @Override
-  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out) {
+  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out,
+      Workers workers) {
     Computer computer = new Computer(files);
     for (FileContext file : files) {
       for (MethodDeclaration m : file.source().unit().findAll(MethodDeclaration.class)) {

@@ -3,6 +3,7 @@ package dev.plumbline.analysis.scope;
 import com.github.javaparser.ast.body.CallableDeclaration;
 import java.util.IdentityHashMap;
 import java.util.Map;
+import java.util.Set;
 
 /**
  * Summaries of the project's own methods for the scope analysis, computed once per scan by
@@ -28,15 +29,20 @@ public final class ScopeSummaries {
     return byMethod.size();
   }
 
-  boolean sameAs(ScopeSummaries other) {
-    if (other.byMethod.size() != byMethod.size()) {
-      return false;
-    }
+  /** Methods whose summary here differs from the one in {@code other} (or exists in one only). */
+  Set<CallableDeclaration<?>> differingFrom(ScopeSummaries other) {
+    Set<CallableDeclaration<?>> out = java.util.Collections.newSetFromMap(new IdentityHashMap<>());
     for (Map.Entry<CallableDeclaration<?>, HelperSummary> e : byMethod.entrySet()) {
       if (!e.getValue().equals(other.byMethod.get(e.getKey()))) {
-        return false;
+        out.add(e.getKey());
       }
     }
-    return true;
+    for (CallableDeclaration<?> m : other.byMethod.keySet()) {
+      if (!byMethod.containsKey(m)) {
+        out.add(m);
+      }
+    }
+    return out;
   }
+
 }

@@ -8,8 +8,11 @@ import com.github.javaparser.ast.expr.MethodCallExpr;
 import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.ProjectFacts;
+import dev.plumbline.engine.Workers;
 import dev.plumbline.flow.ControlFlowGraph;
 import dev.plumbline.types.ProjectIndex;
+import java.util.ArrayList;
+import java.util.Collections;
 import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Map;
@@ -25,7 +28,8 @@ import java.util.TreeSet;
  * gradient recording with every tensor parameter detached, and once per tensor parameter with
  * that parameter attached (does its graph reach the result?). Whether a result is owned by a
  * parameter's manager is read from the returned value's scopes. Summaries that call other
- * helpers are recomputed until nothing changes, at most {@value #MAX_ROUNDS} rounds; a helper
+ * helpers are recomputed (only those calling a helper whose summary changed, files in parallel)
+ * until nothing changes, at most {@value #MAX_ROUNDS} rounds; a helper
  * still changing after that keeps its last summary (recursion through many helpers is rare and
  * the last round's facts are still sound for the rounds they saw). Deterministic: files and
  * methods are visited in their given order.
@@ -34,28 +38,71 @@ public final class ScopeSummaryAnalysis implements ProjectAnalysis {
   static final int MAX_ROUNDS = 4;
 
   @Override
-  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out) {
+  public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out,
+      Workers workers) {
+    List<FileMethods> byFile = workers.map(files, FileMethods::of);
     ScopeSummaries current = ScopeSummaries.NONE;
+    Set<CallableDeclaration<?>> changed = null; // null: the first round, summarize every method
     for (int round = 0; round < MAX_ROUNDS; round++) {
+      ScopeSummaries known = current;
+      Set<CallableDeclaration<?>> stale = changed;
+      List<Map<CallableDeclaration<?>, HelperSummary>> parts =
+          workers.map(byFile, f -> f.summarize(known, stale));
       Map<CallableDeclaration<?>, HelperSummary> next = new IdentityHashMap<>();
-      for (FileContext file : files) {
-        for (ControlFlowGraph g : file.graphs()) {
-          if (g.callable() instanceof MethodDeclaration m) {
-            HelperSummary s = summarize(file, g, m, current);
-            if (s != null) {
-              next.put(m, s);
-            }
-          }
-        }
-      }
+      parts.forEach(next::putAll);
       ScopeSummaries computed = new ScopeSummaries(next);
-      boolean stable = computed.sameAs(current);
+      changed = computed.differingFrom(current);
       current = computed;
-      if (stable) {
+      if (changed.isEmpty()) {
         break;
       }
     }
     out.put(ScopeSummaries.class, current);
+  }
+
+  /**
+   * The methods of one file and the project methods each calls. A method's summary depends on
+   * the summaries of project methods it calls and on nothing else that changes between rounds,
+   * so a round recomputes only the methods that call one whose summary changed.
+   */
+  private record FileMethods(FileContext file, List<ControlFlowGraph> graphs,
+      List<Set<CallableDeclaration<?>>> callees) {
+
+    static FileMethods of(FileContext file) {
+      List<ControlFlowGraph> graphs = new ArrayList<>();
+      List<Set<CallableDeclaration<?>>> callees = new ArrayList<>();
+      for (ControlFlowGraph g : file.graphs()) {
+        if (g.callable() instanceof MethodDeclaration m) {
+          graphs.add(g);
+          Set<CallableDeclaration<?>> called = Collections.newSetFromMap(new IdentityHashMap<>());
+          for (MethodCallExpr call : m.findAll(MethodCallExpr.class)) {
+            file.types().projectMethod(call).ifPresent(pm -> called.add(pm.declaration()));
+          }
+          callees.add(called);
+        }
+      }
+      return new FileMethods(file, graphs, callees);
+    }
+
+    /**
+     * Summaries of this file's methods given {@code known}; a method calling nothing in
+     * {@code stale} (null: everything is stale) keeps its summary in {@code known}.
+     */
+    Map<CallableDeclaration<?>, HelperSummary> summarize(ScopeSummaries known,
+        Set<CallableDeclaration<?>> stale) {
+      Map<CallableDeclaration<?>, HelperSummary> out = new IdentityHashMap<>();
+      for (int i = 0; i < graphs.size(); i++) {
+        ControlFlowGraph g = graphs.get(i);
+        MethodDeclaration m = (MethodDeclaration) g.callable();
+        HelperSummary s = stale == null || !Collections.disjoint(callees.get(i), stale)
+            ? ScopeSummaryAnalysis.summarize(file, g, m, known)
+            : known.of(m);
+        if (s != null) {
+          out.put(m, s);
+        }
+      }
+      return out;
+    }
   }
 
   private static HelperSummary summarize(FileContext file, ControlFlowGraph g, MethodDeclaration m,
