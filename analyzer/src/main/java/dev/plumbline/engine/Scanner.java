@@ -55,6 +55,17 @@ public final class Scanner {
   private final List<ProjectAnalysis> projectAnalyses;
   private final ScanListener listener;
   private final boolean audit;
+  private final FileStage fileStage;
+
+  /**
+   * Work on one file's findings while the file's tree is at hand, on the file's worker thread
+   * (marking suppressed findings, for instance). Returns the findings to keep, in the same order.
+   */
+  public interface FileStage {
+    FileStage NONE = (source, findings) -> findings;
+
+    List<Finding> apply(ParsedSource source, List<Finding> findings);
+  }
 
   /** Progress callbacks (for a progress display); calls may come from several threads. */
   public interface ScanListener {
@@ -67,11 +78,11 @@ public final class Scanner {
 
   public Scanner(ApiModel model, List<Rule> rules, List<ProjectAnalysis> projectAnalyses,
       ScanListener listener) {
-    this(model, rules, projectAnalyses, listener, false);
+    this(model, rules, projectAnalyses, listener, false, FileStage.NONE);
   }
 
   private Scanner(ApiModel model, List<Rule> rules, List<ProjectAnalysis> projectAnalyses,
-      ScanListener listener, boolean audit) {
+      ScanListener listener, boolean audit, FileStage fileStage) {
     this.model = model;
     this.rules = rules.stream()
         .sorted(Comparator.comparing(r -> r.descriptor().id()))
@@ -79,6 +90,7 @@ public final class Scanner {
     this.projectAnalyses = List.copyOf(projectAnalyses);
     this.listener = listener;
     this.audit = audit;
+    this.fileStage = fileStage;
   }
 
   /**
@@ -87,7 +99,12 @@ public final class Scanner {
    * project's methods and a walk of each file's calls.
    */
   public Scanner withAudit() {
-    return new Scanner(model, rules, projectAnalyses, listener, true);
+    return new Scanner(model, rules, projectAnalyses, listener, true, fileStage);
+  }
+
+  /** The same scan, passing each file's findings through {@code stage}. */
+  public Scanner withFileStage(FileStage stage) {
+    return new Scanner(model, rules, projectAnalyses, listener, audit, stage);
   }
 
   public Scanner(ApiModel model, List<Rule> rules) {
@@ -257,6 +274,11 @@ public final class Scanner {
             Message.of("notification.rule-failed", rule.descriptor().id(), file.uri(), describe(e)),
             Optional.of(new Location(file.uri(), new SourceRange(1, 1, 1, 1))), true));
       }
+    }
+    try {
+      findings = new ArrayList<>(fileStage.apply(file.source(), findings));
+    } catch (RuntimeException | StackOverflowError e) {
+      notes.add(fileFailure("notification.file-stage-failed", file.uri(), describe(e)));
     }
     List<CallableSummary> callables = List.of();
     if (audit) {

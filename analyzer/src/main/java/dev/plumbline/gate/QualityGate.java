@@ -120,13 +120,13 @@ public final class QualityGate {
     excludes.addAll(options.excludes());
     ScanRequest request = new ScanRequest(options.paths(), options.baseDirectory(), includes,
         new ArrayList<>(excludes), options.jobs(), config.analysisSettings());
-    Scanner scanner = new Scanner(model, config.enabledRules(allRules), projectAnalyses, listener);
+    Scanner scanner = new Scanner(model, config.enabledRules(allRules), projectAnalyses, listener)
+        .withFileStage(Suppressions::mark);
     if (audit) {
       scanner = scanner.withAudit();
     }
     ScanResult result = scanner.scan(request);
     result = SeverityOverrides.apply(result, config);
-    result = Suppressions.apply(result);
     Optional<BaselineSummary> summary = Optional.empty();
     if (baseline.isPresent()) {
       Baseline.Outcome filtered = baseline.get().filter(result,
