@@ -191,8 +191,11 @@ public final class Scanner {
   private List<FileContext> runProjectAnalyses(ExecutorService pool, List<ProjectAnalysis> analyses,
       List<ParsedSource> parsed, ProjectIndex index, ProjectFacts facts, ScanRequest request,
       List<Notification> notes) {
-    List<FileContext> contexts = parallel(pool, parsed,
-        p -> new FileContext(p, index, facts, request.settings()), (p, e) -> null);
+    List<FileContext> contexts = parallel(pool, parsed, p -> {
+      FileContext context = new FileContext(p, index, facts, request.settings());
+      context.graphs(); // built here in parallel, before analyses that visit every file in turn
+      return context;
+    }, (p, e) -> null);
     if (analyses.isEmpty()) {
       return contexts;
     }

@@ -103,7 +103,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
           changedMethods.addAll(changed);
         }
       }
-      changedFields = updateFields(files, methods, summaries);
+      changedFields = updateFields(files, methods, summaries, workers);
       if (changedFields.isEmpty()) {
         break;
       }
@@ -189,10 +189,10 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
           return true;
         }
       }
-      boolean readsChanged = m.declaration().findFirst(com.github.javaparser.ast.expr.SimpleName.class,
-          n -> changedFields.contains(n.getIdentifier())).isPresent();
-      if (readsChanged) {
-        return true;
+      for (String name : callGraph.names(m)) {
+        if (changedFields.contains(name)) {
+          return true;
+        }
       }
     }
     return false;
@@ -317,38 +317,52 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
    * as whatever the field's name says, else whole rows.
    */
   private static Set<String> updateFields(List<FileContext> files, List<Method> methods,
-      ProvenanceSummaries summaries) {
+      ProvenanceSummaries summaries, Workers workers) {
     Map<Node, List<ProvenanceFacts.FieldWrite>> writes = new IdentityHashMap<>();
     for (Method m : methods) {
       for (ProvenanceFacts.FieldWrite w : m.writes) {
         writes.computeIfAbsent(w.field(), k -> new ArrayList<>()).add(w);
       }
     }
+    // Each file's fields are summarized by one worker; summaries are recorded in file order.
+    List<List<Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary>>> perFile =
+        workers.map(files, file -> fieldSummaries(file, writes));
     Set<String> changed = new TreeSet<>();
-    for (FileContext file : files) {
-      for (FieldDeclaration fd : file.source().unit().findAll(FieldDeclaration.class)) {
-        for (VariableDeclarator d : fd.getVariables()) {
-          List<DataValue> values = new ArrayList<>();
-          List<Node> sites = new ArrayList<>();
-          if (d.getInitializer().isPresent()) {
-            values.add(ProvenanceAnalysis.initializerValue(file, d));
-            sites.add(d);
-          }
-          for (ProvenanceFacts.FieldWrite w : writes.getOrDefault(d, List.of())) {
-            values.add(w.value());
-            sites.add(w.at());
-          }
-          if (values.isEmpty()) {
-            continue;
-          }
-          ProvenanceSummaries.FieldSummary s = fieldSummary(d, values, sites, file.settings());
-          if (s != null && summaries.putField(d, s)) {
-            changed.add(d.getNameAsString());
-          }
+    for (List<Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary>> fields : perFile) {
+      for (Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary> e : fields) {
+        if (summaries.putField(e.getKey(), e.getValue())) {
+          changed.add(e.getKey().getNameAsString());
         }
       }
     }
     return changed;
+  }
+
+  private static List<Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary>> fieldSummaries(
+      FileContext file, Map<Node, List<ProvenanceFacts.FieldWrite>> writes) {
+    List<Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary>> out = new ArrayList<>();
+    for (FieldDeclaration fd : file.source().unit().findAll(FieldDeclaration.class)) {
+      for (VariableDeclarator d : fd.getVariables()) {
+        List<DataValue> values = new ArrayList<>();
+        List<Node> sites = new ArrayList<>();
+        if (d.getInitializer().isPresent()) {
+          values.add(ProvenanceAnalysis.initializerValue(file, d));
+          sites.add(d);
+        }
+        for (ProvenanceFacts.FieldWrite w : writes.getOrDefault(d, List.of())) {
+          values.add(w.value());
+          sites.add(w.at());
+        }
+        if (values.isEmpty()) {
+          continue;
+        }
+        ProvenanceSummaries.FieldSummary s = fieldSummary(d, values, sites, file.settings());
+        if (s != null) {
+          out.add(Map.entry(d, s));
+        }
+      }
+    }
+    return out;
   }
 
   private static ProvenanceSummaries.FieldSummary fieldSummary(VariableDeclarator d,
@@ -393,6 +407,8 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     private final List<Method> methods;
     private final Map<Node, Method> byDeclaration = new IdentityHashMap<>();
     private final Map<Method, List<Method>> callees = new IdentityHashMap<>();
+    /** Written by the workers resolving calls, one method each; read after they finished. */
+    private final Map<Method, Set<String>> names = new java.util.concurrent.ConcurrentHashMap<>();
 
     CallGraph(List<Method> methods, Workers workers) {
       this.methods = methods;
@@ -415,7 +431,15 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
       }
     }
 
+    /** The identifiers a method's code mentions (a superset of the fields it reads). */
+    Set<String> names(Method m) {
+      return names.get(m);
+    }
+
     private List<Method> resolve(Method m) {
+      names.put(m, m.declaration().findAll(com.github.javaparser.ast.expr.SimpleName.class).stream()
+          .map(com.github.javaparser.ast.expr.SimpleName::getIdentifier)
+          .collect(java.util.stream.Collectors.toUnmodifiableSet()));
       List<Method> out = new ArrayList<>();
       for (MethodCallExpr call : m.declaration().findAll(MethodCallExpr.class)) {
         m.file().types().projectMethod(call)

@@ -94,7 +94,7 @@ public final class ScopeSummaryAnalysis implements ProjectAnalysis {
       for (int i = 0; i < graphs.size(); i++) {
         ControlFlowGraph g = graphs.get(i);
         MethodDeclaration m = (MethodDeclaration) g.callable();
-        HelperSummary s = stale == null || !Collections.disjoint(callees.get(i), stale)
+        HelperSummary s = stale == null || callsAny(callees.get(i), stale)
             ? ScopeSummaryAnalysis.summarize(file, g, m, known)
             : known.of(m);
         if (s != null) {
@@ -102,6 +102,16 @@ public final class ScopeSummaryAnalysis implements ProjectAnalysis {
         }
       }
       return out;
+    }
+
+    private static boolean callsAny(Set<CallableDeclaration<?>> called,
+        Set<CallableDeclaration<?>> stale) {
+      for (CallableDeclaration<?> c : called) { // usually far fewer than the stale ones
+        if (stale.contains(c)) {
+          return true;
+        }
+      }
+      return false;
     }
   }
 
