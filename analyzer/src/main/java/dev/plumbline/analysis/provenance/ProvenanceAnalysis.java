@@ -143,6 +143,14 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
     return lineages.computeIfAbsent(site, s -> new Lineage(s, label));
   }
 
+  /**
+   * The lineage of rows that enter at {@code site}, labelled with the site's code. The label is
+   * made once per site: evaluation visits a site on every pass of the fixed-point iteration.
+   */
+  Lineage lineageAt(Node site) {
+    return lineages.computeIfAbsent(site, s -> new Lineage(s, shortText(s)));
+  }
+
   boolean isDataType(String type) {
     if (type == null) {
       return false;

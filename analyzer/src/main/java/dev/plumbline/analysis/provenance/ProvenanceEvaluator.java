@@ -741,7 +741,7 @@ final class ProvenanceEvaluator {
       }
     }
     if (r.ownData()) {
-      lineages.add(a.lineageAt(call, ProvenanceAnalysis.shortText(call)));
+      lineages.add(a.lineageAt(call));
     }
     for (Node field : r.fields()) {
       if (field instanceof VariableDeclarator d) {
@@ -783,13 +783,13 @@ final class ProvenanceEvaluator {
         return pending;
       }
       return new DataValue(DataValue.Kind.DATA, pending.roles(), Set.of(),
-          Set.of(a.lineageAt(call, ProvenanceAnalysis.shortText(call))), Set.of(), 0,
+          Set.of(a.lineageAt(call)), Set.of(), 0,
           pending.origins(), pending.timeOrdered());
     }
     if (!a.isDataType(type)) {
       return null;
     }
-    return named(DataValue.fresh(a.lineageAt(call, ProvenanceAnalysis.shortText(call))),
+    return named(DataValue.fresh(a.lineageAt(call)),
         DataNames.namesIn(call), call);
   }
 
