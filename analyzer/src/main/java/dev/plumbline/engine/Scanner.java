@@ -58,13 +58,13 @@ public final class Scanner {
   private final FileStage fileStage;
 
   /**
-   * Work on one file's findings while the file's tree is at hand, on the file's worker thread
+   * Work on one file's findings while the file's context is at hand, on the file's worker thread
    * (marking suppressed findings, for instance). Returns the findings to keep, in the same order.
    */
   public interface FileStage {
-    FileStage NONE = (source, findings) -> findings;
+    FileStage NONE = (file, findings) -> findings;
 
-    List<Finding> apply(ParsedSource source, List<Finding> findings);
+    List<Finding> apply(FileContext file, List<Finding> findings);
   }
 
   /** Progress callbacks (for a progress display); calls may come from several threads. */
@@ -279,7 +279,7 @@ public final class Scanner {
       }
     }
     try {
-      findings = new ArrayList<>(fileStage.apply(file.source(), findings));
+      findings = new ArrayList<>(fileStage.apply(file, findings));
     } catch (RuntimeException | StackOverflowError e) {
       notes.add(fileFailure("notification.file-stage-failed", file.uri(), describe(e)));
     }

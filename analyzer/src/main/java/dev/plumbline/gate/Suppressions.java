@@ -1,7 +1,7 @@
 package dev.plumbline.gate;
 
+import dev.plumbline.engine.FileContext;
 import dev.plumbline.finding.Finding;
-import dev.plumbline.parse.ParsedSource;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -12,17 +12,18 @@ import java.util.Optional;
  * count towards the fail level.
  *
  * <p>A {@linkplain dev.plumbline.engine.Scanner.FileStage file stage}: it runs on each file's
- * worker while the file's tree is at hand, so no file is parsed twice.
+ * worker with the file's context, so no file is parsed twice and the suppression sites found for
+ * {@code suppression.invalid} serve here too.
  */
 public final class Suppressions {
   private Suppressions() {}
 
   /** Notebooks map lines, so their positions cannot be matched here; they keep every finding. */
-  public static List<Finding> mark(ParsedSource source, List<Finding> findings) {
-    if (findings.isEmpty() || source.file().isNotebook()) {
+  public static List<Finding> mark(FileContext file, List<Finding> findings) {
+    if (findings.isEmpty() || file.source().file().isNotebook()) {
       return findings;
     }
-    SuppressionSites sites = SuppressionSites.of(source.unit(), source.text());
+    SuppressionSites sites = file.analysis(SuppressionSites.KEY); // shared with suppression.invalid
     List<Finding> out = new ArrayList<>(findings.size());
     for (Finding f : findings) {
       Optional<SuppressionSites.Site> site = f.isSuppressed() ? Optional.empty()
