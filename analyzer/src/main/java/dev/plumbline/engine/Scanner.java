@@ -140,7 +140,7 @@ public final class Scanner {
         o.parsed().ifPresent(parsed::add);
       }
       List<CompilationUnit> units = parsed.stream().map(ParsedSource::unit).toList();
-      ProjectIndex index = ProjectIndex.build(model, units);
+      ProjectIndex index = indexProject(pool, units);
       ProjectFacts facts = new ProjectFacts();
       List<ProjectAnalysis> analyses = new ArrayList<>(projectAnalyses);
       if (audit) {
@@ -182,6 +182,15 @@ public final class Scanner {
     } finally {
       pool.shutdownNow();
     }
+  }
+
+  /** {@link ProjectIndex#build}, with each unit's part done on the pool. */
+  private ProjectIndex indexProject(ExecutorService pool, List<CompilationUnit> units) {
+    java.util.Set<String> typeNames = new java.util.HashSet<>();
+    Workers workers = onPool(pool);
+    workers.map(units, ProjectIndex::declaredTypeNames).forEach(typeNames::addAll);
+    return ProjectIndex.of(model, workers.map(units,
+        unit -> ProjectIndex.declaredTypes(model, unit, typeNames)), typeNames);
   }
 
   /**

@@ -87,49 +87,83 @@ public final class ProjectIndex {
   public static ProjectIndex build(ApiModel model, Collection<CompilationUnit> units) {
     Set<String> names = new HashSet<>();
     for (CompilationUnit unit : units) {
-      for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
-        type.getFullyQualifiedName().ifPresent(names::add);
-      }
+      names.addAll(declaredTypeNames(unit));
     }
     Set<String> typeNames = Set.copyOf(names);
-    Map<String, ProjectType> types = new LinkedHashMap<>();
+    List<List<ProjectType>> perUnit = new ArrayList<>();
     for (CompilationUnit unit : units) {
-      TypeResolver resolver = new TypeResolver(unit, model, typeNames::contains);
-      for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
-        Optional<String> qualified = type.getFullyQualifiedName();
-        if (qualified.isEmpty() || types.containsKey(qualified.get())) {
-          continue; // local classes have no qualified name; duplicates keep the first
-        }
-        List<String> supers = new ArrayList<>();
-        List<ClassOrInterfaceType> written = new ArrayList<>();
-        if (type instanceof ClassOrInterfaceDeclaration c) {
-          written.addAll(c.getExtendedTypes());
-          written.addAll(c.getImplementedTypes());
-        } else if (type instanceof EnumDeclaration e) {
-          written.addAll(e.getImplementedTypes());
-        } else if (type instanceof RecordDeclaration r) {
-          written.addAll(r.getImplementedTypes());
-        }
-        for (ClassOrInterfaceType t : written) {
-          String resolved = resolver.resolve(t);
-          if (resolved != null) {
-            supers.add(resolved);
-          }
-        }
-        List<ProjectMethod> methods = new ArrayList<>();
-        for (BodyDeclaration<?> member : type.getMembers()) {
-          if (!(member instanceof CallableDeclaration<?> callable)) {
-            continue;
-          }
-          String returns = callable instanceof MethodDeclaration m ? resolver.resolve(m.getType())
-              : qualified.get();
-          methods.add(new ProjectMethod(qualified.get(), callable, returns));
-        }
-        types.put(qualified.get(), new ProjectType(qualified.get(), type, List.copyOf(supers),
-            List.copyOf(methods)));
+      perUnit.add(declaredTypes(model, unit, typeNames));
+    }
+    return of(model, perUnit, typeNames);
+  }
+
+  /**
+   * The index of the types each unit declares, given in the units' order: where two units
+   * declare the same qualified name, the first keeps it. With {@link #declaredTypeNames} and
+   * {@link #declaredTypes}, lets a caller index the units in parallel.
+   */
+  public static ProjectIndex of(ApiModel model, List<List<ProjectType>> perUnit,
+      Set<String> typeNames) {
+    Map<String, ProjectType> types = new LinkedHashMap<>();
+    for (List<ProjectType> declared : perUnit) {
+      for (ProjectType type : declared) {
+        types.putIfAbsent(type.name(), type);
       }
     }
-    return new ProjectIndex(model, Map.copyOf(types), typeNames);
+    return new ProjectIndex(model, Map.copyOf(types), Set.copyOf(typeNames));
+  }
+
+  /** Qualified names of the types a unit declares (local classes have none). */
+  public static Set<String> declaredTypeNames(CompilationUnit unit) {
+    Set<String> names = new HashSet<>();
+    for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
+      type.getFullyQualifiedName().ifPresent(names::add);
+    }
+    return names;
+  }
+
+  /**
+   * The types a unit declares, with supertypes and return types resolved through its imports
+   * against the project's {@code typeNames}; a name declared twice in the unit keeps the first.
+   */
+  public static List<ProjectType> declaredTypes(ApiModel model, CompilationUnit unit,
+      Set<String> typeNames) {
+    TypeResolver resolver = new TypeResolver(unit, model, typeNames::contains);
+    Map<String, ProjectType> types = new LinkedHashMap<>();
+    for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
+      Optional<String> qualified = type.getFullyQualifiedName();
+      if (qualified.isEmpty() || types.containsKey(qualified.get())) {
+        continue; // local classes have no qualified name; duplicates keep the first
+      }
+      List<String> supers = new ArrayList<>();
+      List<ClassOrInterfaceType> written = new ArrayList<>();
+      if (type instanceof ClassOrInterfaceDeclaration c) {
+        written.addAll(c.getExtendedTypes());
+        written.addAll(c.getImplementedTypes());
+      } else if (type instanceof EnumDeclaration e) {
+        written.addAll(e.getImplementedTypes());
+      } else if (type instanceof RecordDeclaration r) {
+        written.addAll(r.getImplementedTypes());
+      }
+      for (ClassOrInterfaceType t : written) {
+        String resolved = resolver.resolve(t);
+        if (resolved != null) {
+          supers.add(resolved);
+        }
+      }
+      List<ProjectMethod> methods = new ArrayList<>();
+      for (BodyDeclaration<?> member : type.getMembers()) {
+        if (!(member instanceof CallableDeclaration<?> callable)) {
+          continue;
+        }
+        String returns = callable instanceof MethodDeclaration m ? resolver.resolve(m.getType())
+            : qualified.get();
+        methods.add(new ProjectMethod(qualified.get(), callable, returns));
+      }
+      types.put(qualified.get(), new ProjectType(qualified.get(), type, List.copyOf(supers),
+          List.copyOf(methods)));
+    }
+    return List.copyOf(types.values());
   }
 
   /** An index with no project types, for analyzing a lone snippet. */

@@ -60,10 +60,26 @@ public final class ConfigurationReach implements ProjectAnalysis {
         }
       }
     }
+    // What a method's parameters reach depends on what the project methods it calls reach, and
+    // on nothing else that changes: a method whose callees changed nothing since it was last
+    // looked at would get the same answer, so it is skipped. Exactly the same result, faster.
+    List<Set<Node>> callees = new ArrayList<>();
+    for (List<Set<Node>> ofFile : workers.map(byFile(owners), range -> range.stream()
+        .map(i -> calledProjectMethods(owners.get(i), methods.get(i))).toList())) {
+      callees.addAll(ofFile);
+    }
+    Map<Node, Integer> changedAt = new IdentityHashMap<>();
+    int[] lookedAt = new int[methods.size()];
+    int step = 0;
     for (int round = 0; round < ROUNDS; round++) {
       boolean changed = false;
       for (int i = 0; i < methods.size(); i++) {
         CallableDeclaration<?> m = methods.get(i);
+        step++;
+        if (round > 0 && !changedSince(callees.get(i), changedAt, lookedAt[i])) {
+          continue;
+        }
+        lookedAt[i] = step;
         Set<Integer> reach = new TreeSet<>(result.of(m));
         List<Parameter> params = m.getParameters();
         for (int p = 0; p < params.size(); p++) {
@@ -73,6 +89,7 @@ public final class ConfigurationReach implements ProjectAnalysis {
         }
         if (!reach.equals(result.of(m))) {
           result.byMethod.put(m, Collections.unmodifiableSet(reach));
+          changedAt.put(m, step);
           changed = true;
         }
       }
@@ -80,6 +97,40 @@ public final class ConfigurationReach implements ProjectAnalysis {
         break;
       }
     }
+  }
+
+  /** Indices of the methods grouped by file, in order: a file context serves one worker. */
+  private static List<List<Integer>> byFile(List<FileContext> owners) {
+    List<List<Integer>> out = new ArrayList<>();
+    for (int i = 0; i < owners.size(); i++) {
+      if (i == 0 || owners.get(i) != owners.get(i - 1)) {
+        out.add(new ArrayList<>());
+      }
+      out.get(out.size() - 1).add(i);
+    }
+    return out;
+  }
+
+  private static Set<Node> calledProjectMethods(FileContext file, CallableDeclaration<?> m) {
+    Set<Node> out = Collections.newSetFromMap(new IdentityHashMap<>());
+    for (MethodCallExpr call : m.findAll(MethodCallExpr.class)) {
+      file.types().projectMethod(call).ifPresent(pm -> out.add(pm.declaration()));
+    }
+    return out;
+  }
+
+  /**
+   * Whether one of {@code callees} changed its reach at or after step {@code since} (at: the
+   * method itself, when recursive, changed when it was last looked at).
+   */
+  private static boolean changedSince(Set<Node> callees, Map<Node, Integer> changedAt, int since) {
+    for (Node c : callees) {
+      Integer at = changedAt.get(c);
+      if (at != null && at >= since) {
+        return true;
+      }
+    }
+    return false;
   }
 
   private static boolean reaches(FileContext file, CallableDeclaration<?> m, Parameter p,
