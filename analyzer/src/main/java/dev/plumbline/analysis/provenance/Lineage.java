@@ -2,6 +2,7 @@ package dev.plumbline.analysis.provenance;
 
 import com.github.javaparser.ast.Node;
 import java.util.Comparator;
+import java.util.function.Function;
 
 /**
  * A body of data identified by the place it entered the method: a load call, a constructor, a
@@ -14,14 +15,23 @@ public final class Lineage {
   public static final Comparator<Lineage> BY_POSITION = Comparator
       .comparingInt((Lineage l) -> l.site.getBegin().map(p -> p.line).orElse(0))
       .thenComparingInt(l -> l.site.getBegin().map(p -> p.column).orElse(0))
-      .thenComparing(l -> l.label);
+      .thenComparing(Lineage::label);
 
   private final Node site;
-  private final String label;
+  private final Function<Node, String> labeller;
+  /** Made on first use: most lineages are never named in a message. */
+  private String label;
 
   public Lineage(Node site, String label) {
     this.site = site;
+    this.labeller = null;
     this.label = label;
+  }
+
+  /** A lineage whose label {@code labeller} makes from the site when first asked. */
+  public Lineage(Node site, Function<Node, String> labeller) {
+    this.site = site;
+    this.labeller = labeller;
   }
 
   /** Where the data entered: a call, a {@code new}, a parameter or a field declarator. */
@@ -37,7 +47,13 @@ public final class Lineage {
 
   /** How the code names the data there, e.g. {@code allRows} or {@code loader.load()}. */
   public String label() {
-    return label;
+    String l = label;
+    if (l == null) {
+      // Racy but benign: the label is a pure function of the site, and strings are immutable.
+      l = labeller.apply(site);
+      label = l;
+    }
+    return l;
   }
 
   @Override
@@ -52,6 +68,6 @@ public final class Lineage {
 
   @Override
   public String toString() {
-    return label + "@" + site.getBegin().map(p -> p.line + ":" + p.column).orElse("?");
+    return label() + "@" + site.getBegin().map(p -> p.line + ":" + p.column).orElse("?");
   }
 }

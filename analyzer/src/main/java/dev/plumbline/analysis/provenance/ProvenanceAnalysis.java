@@ -145,10 +145,10 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
 
   /**
    * The lineage of rows that enter at {@code site}, labelled with the site's code. The label is
-   * made once per site: evaluation visits a site on every pass of the fixed-point iteration.
+   * made only if a message names it, once per site.
    */
   Lineage lineageAt(Node site) {
-    return lineages.computeIfAbsent(site, s -> new Lineage(s, shortText(s)));
+    return lineages.computeIfAbsent(site, s -> new Lineage(s, ProvenanceAnalysis::shortText));
   }
 
   boolean isDataType(String type) {

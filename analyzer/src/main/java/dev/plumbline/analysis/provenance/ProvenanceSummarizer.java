@@ -86,6 +86,8 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     summaries.prepare(methods.stream().map(Method::declaration).toList());
     CallGraph callGraph = new CallGraph(methods, workers);
     List<List<List<Method>>> levels = callGraph.levels();
+    List<FileFields> fields = workers.map(files,
+        f -> new FileFields(f, f.source().unit().findAll(FieldDeclaration.class)));
     Set<String> changedFields = null; // null: first round, summarize everything
     for (int round = 0; round < FIELD_ROUNDS; round++) {
       Set<Method> changedMethods = Collections.newSetFromMap(new IdentityHashMap<>());
@@ -103,7 +105,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
           changedMethods.addAll(changed);
         }
       }
-      changedFields = updateFields(files, methods, summaries, workers);
+      changedFields = updateFields(fields, methods, summaries, workers);
       if (changedFields.isEmpty()) {
         break;
       }
@@ -316,7 +318,10 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
    * the fields whose summary changed. A write of untracked rows or of a caller's argument counts
    * as whatever the field's name says, else whole rows.
    */
-  private static Set<String> updateFields(List<FileContext> files, List<Method> methods,
+  /** A file's field declarations, looked up once for every pass. */
+  private record FileFields(FileContext file, List<FieldDeclaration> declarations) {}
+
+  private static Set<String> updateFields(List<FileFields> files, List<Method> methods,
       ProvenanceSummaries summaries, Workers workers) {
     Map<Node, List<ProvenanceFacts.FieldWrite>> writes = new IdentityHashMap<>();
     for (Method m : methods) {
@@ -339,9 +344,10 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
   }
 
   private static List<Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary>> fieldSummaries(
-      FileContext file, Map<Node, List<ProvenanceFacts.FieldWrite>> writes) {
+      FileFields fields, Map<Node, List<ProvenanceFacts.FieldWrite>> writes) {
+    FileContext file = fields.file();
     List<Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary>> out = new ArrayList<>();
-    for (FieldDeclaration fd : file.source().unit().findAll(FieldDeclaration.class)) {
+    for (FieldDeclaration fd : fields.declarations()) {
       for (VariableDeclarator d : fd.getVariables()) {
         List<DataValue> values = new ArrayList<>();
         List<Node> sites = new ArrayList<>();
