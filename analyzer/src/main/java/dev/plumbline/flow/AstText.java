@@ -10,10 +10,12 @@ import com.github.javaparser.ast.stmt.TryStmt;
 import com.github.javaparser.ast.stmt.WhileStmt;
 import com.github.javaparser.printer.configuration.DefaultConfigurationOption;
 import com.github.javaparser.printer.configuration.DefaultPrinterConfiguration;
+import java.util.regex.Pattern;
 
 /** Short one-line renderings of AST elements for dumps and messages. */
 public final class AstText {
   private static final int MAX = 60;
+  private static final Pattern WHITESPACE = Pattern.compile("\\s+");
 
   private AstText() {}
 
@@ -24,7 +26,7 @@ public final class AstText {
   public static String code(Node node) {
     DefaultPrinterConfiguration noComments = new DefaultPrinterConfiguration();
     noComments.removeOption(new DefaultConfigurationOption(DefaultPrinterConfiguration.ConfigOption.PRINT_COMMENTS));
-    return node.toString(noComments).replaceAll("\\s+", " ").trim();
+    return WHITESPACE.matcher(node.toString(noComments)).replaceAll(" ").trim();
   }
 
   public static String abbreviate(Node node) {
@@ -37,7 +39,7 @@ public final class AstText {
     } else {
       text = node.toString();
     }
-    text = text.replaceAll("\\s+", " ").trim();
+    text = WHITESPACE.matcher(text).replaceAll(" ").trim();
     return text.length() <= MAX ? text : text.substring(0, MAX - 3) + "...";
   }
 }

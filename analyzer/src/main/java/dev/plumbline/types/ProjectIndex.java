@@ -67,6 +67,11 @@ public final class ProjectIndex {
   private final Map<String, List<String>> supertypeClosures;
 
   private final Set<String> typeNames;
+  /**
+   * The library roles of each type asked about, with its supertypes': asked on nearly every
+   * expression. A memo of a pure function, safe to share between the analysis threads.
+   */
+  private final Map<String, Set<TypeRole>> roles = new java.util.concurrent.ConcurrentHashMap<>();
 
   private ProjectIndex(ApiModel model, Map<String, ProjectType> types, Set<String> typeNames) {
     this.model = model;
@@ -220,12 +225,15 @@ public final class ProjectIndex {
     if (typeName == null) {
       return false;
     }
+    return roles.computeIfAbsent(typeName, this::computeRoles).contains(role);
+  }
+
+  private Set<TypeRole> computeRoles(String typeName) {
+    Set<TypeRole> out = java.util.EnumSet.noneOf(TypeRole.class);
     for (String t : selfAndSupertypes(typeName)) {
-      if (model.type(t).map(at -> at.roles().contains(role)).orElse(false)) {
-        return true;
-      }
+      model.type(t).ifPresent(at -> out.addAll(at.roles()));
     }
-    return false;
+    return java.util.Collections.unmodifiableSet(out);
   }
 
   /** Project methods callable on {@code typeName} by name and arity, nearest class first. */
