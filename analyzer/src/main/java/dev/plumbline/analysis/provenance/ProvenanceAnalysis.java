@@ -61,6 +61,8 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
   final Mode mode;
   final ProvenanceSummaries summaries;
   private final Map<Node, Lineage> lineages = new IdentityHashMap<>();
+  /** Field declarators whose project-wide summary this analysis looked up. */
+  private final Set<Node> fieldSummariesRead = DataValue.identitySet(List.of());
 
   ProvenanceAnalysis(FileContext file, ControlFlowGraph graph, Mode mode) {
     this.file = file;
@@ -93,7 +95,14 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
         new ProvenanceEvaluator(analysis, facts).node(node, before);
       }
     }
+    facts.readFieldSummaries(analysis.fieldSummariesRead);
     return true;
+  }
+
+  /** A field's project-wide summary, noting that this analysis depends on it. */
+  ProvenanceSummaries.FieldSummary fieldSummary(Node declarator) {
+    fieldSummariesRead.add(declarator);
+    return summaries.field(declarator);
   }
 
   /** The value of a field's initializer, evaluated on its own (for field summaries). */

@@ -313,7 +313,7 @@ final class ProvenanceEvaluator {
       return null;
     }
     Lineage lineage = a.lineageAt(v.declaration(), v.toString());
-    ProvenanceSummaries.FieldSummary summary = a.summaries.field(v.declaration());
+    ProvenanceSummaries.FieldSummary summary = a.fieldSummary(v.declaration());
     if (summary != null && !summary.roles().isEmpty()) {
       return new DataValue(DataValue.Kind.DATA, summary.roles(), summary.guessed(), Set.of(lineage),
           Set.of(), 0, sameFile(summary.origins()), sameFile(summary.timeOrdered()));

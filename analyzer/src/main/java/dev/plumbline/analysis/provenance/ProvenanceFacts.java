@@ -110,6 +110,7 @@ public final class ProvenanceFacts {
   private final List<Evaluation> evaluations = new ArrayList<>();
   private final List<Shuffle> shuffles = new ArrayList<>();
   private final List<FieldWrite> fieldWrites = new ArrayList<>();
+  private final Set<Node> fieldSummariesRead = DataValue.identitySet(List.of());
   private final List<Returned> returns = new ArrayList<>();
 
   void add(Fit f) {
@@ -179,6 +180,18 @@ public final class ProvenanceFacts {
 
   public List<FieldWrite> fieldWrites() {
     return Collections.unmodifiableList(fieldWrites);
+  }
+
+  void readFieldSummaries(Set<Node> declarators) {
+    fieldSummariesRead.addAll(declarators);
+  }
+
+  /**
+   * The field declarators whose project-wide summaries the analysis looked up: the only way
+   * field summaries reach its results, so results stay the same while those summaries do.
+   */
+  public Set<Node> fieldSummariesRead() {
+    return Collections.unmodifiableSet(fieldSummariesRead);
   }
 
   public List<Returned> returns() {

@@ -56,6 +56,11 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     private final int order;
     /** The field writes found when this method was last summarized; its summarizing thread's. */
     private List<ProvenanceFacts.FieldWrite> writes = List.of();
+    /**
+     * The fields whose summaries its last summary rests on; null when unknown (its analysis did
+     * not converge), and then any field it names counts.
+     */
+    private Set<Node> fieldSummariesRead;
 
     Method(FileContext file, CallableDeclaration<?> declaration, ControlFlowGraph graph, int order) {
       this.file = file;
@@ -88,7 +93,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     List<List<List<Method>>> levels = callGraph.levels();
     List<FileFields> fields = workers.map(files,
         f -> new FileFields(f, f.source().unit().findAll(FieldDeclaration.class)));
-    Set<String> changedFields = null; // null: first round, summarize everything
+    Set<Node> changedFields = null; // null: first round, summarize everything
     for (int round = 0; round < FIELD_ROUNDS; round++) {
       Set<Method> changedMethods = Collections.newSetFromMap(new IdentityHashMap<>());
       for (List<List<Method>> level : levels) {
@@ -183,16 +188,31 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
   }
 
   /** Whether a component must be summarized again after some fields' summaries changed. */
-  private static boolean affected(List<Method> component, Set<String> changedFields,
+  private static boolean affected(List<Method> component, Set<Node> changedFields,
       Set<Method> changedMethods, CallGraph callGraph) {
+    Set<String> changedNames = null;
     for (Method m : component) {
       for (Method callee : callGraph.callees(m)) {
         if (changedMethods.contains(callee)) {
           return true;
         }
       }
+      if (m.fieldSummariesRead != null) {
+        for (Node field : m.fieldSummariesRead) {
+          if (changedFields.contains(field)) {
+            return true;
+          }
+        }
+        continue;
+      }
+      if (changedNames == null) {
+        changedNames = new TreeSet<>();
+        for (Node field : changedFields) {
+          changedNames.add(((VariableDeclarator) field).getNameAsString());
+        }
+      }
       for (String name : callGraph.names(m)) {
-        if (changedFields.contains(name)) {
+        if (changedNames.contains(name)) {
           return true;
         }
       }
@@ -216,7 +236,10 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
   /** Summarizes one method; returns whether its summary changed. */
   private static boolean summarize(Method m, ProvenanceSummaries summaries) {
     ProvenanceFacts facts = new ProvenanceFacts();
-    if (!ProvenanceAnalysis.analyzeGraph(m.file(), m.graph(), ProvenanceAnalysis.Mode.SUMMARY, facts)) {
+    boolean converged =
+        ProvenanceAnalysis.analyzeGraph(m.file(), m.graph(), ProvenanceAnalysis.Mode.SUMMARY, facts);
+    m.fieldSummariesRead = converged ? facts.fieldSummariesRead() : null;
+    if (!converged) {
       // No fixed point: callers treat its result as unknown rows and know none of its uses.
       return summaries.put(m.declaration(), new ProvenanceSummaries.MethodSummary(null, List.of(), true));
     }
@@ -313,15 +336,16 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
         fields, v.parts(), v.isTimeOrdered());
   }
 
-  /**
-   * Recomputes what each field may hold from every write and initializer; returns the names of
-   * the fields whose summary changed. A write of untracked rows or of a caller's argument counts
-   * as whatever the field's name says, else whole rows.
-   */
   /** A file's field declarations, looked up once for every pass. */
   private record FileFields(FileContext file, List<FieldDeclaration> declarations) {}
 
-  private static Set<String> updateFields(List<FileFields> files, List<Method> methods,
+  /**
+   * Recomputes what each field may hold from every write and initializer; returns the
+   * declarators of the fields whose summary changed. A write of untracked rows or of a caller's
+   * argument counts as whatever the field's name says, else whole rows.
+   */
+
+  private static Set<Node> updateFields(List<FileFields> files, List<Method> methods,
       ProvenanceSummaries summaries, Workers workers) {
     Map<Node, List<ProvenanceFacts.FieldWrite>> writes = new IdentityHashMap<>();
     for (Method m : methods) {
@@ -332,11 +356,11 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     // Each file's fields are summarized by one worker; summaries are recorded in file order.
     List<List<Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary>>> perFile =
         workers.map(files, file -> fieldSummaries(file, writes));
-    Set<String> changed = new TreeSet<>();
+    Set<Node> changed = DataValue.identitySet(List.of());
     for (List<Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary>> fields : perFile) {
       for (Map.Entry<VariableDeclarator, ProvenanceSummaries.FieldSummary> e : fields) {
         if (summaries.putField(e.getKey(), e.getValue())) {
-          changed.add(e.getKey().getNameAsString());
+          changed.add(e.getKey());
         }
       }
     }
