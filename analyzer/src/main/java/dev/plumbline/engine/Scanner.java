@@ -20,10 +20,12 @@ import dev.plumbline.parse.SourceParser;
 import dev.plumbline.types.ProjectIndex;
 import java.util.ArrayList;
 import java.util.Comparator;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.Set;
 import java.util.TreeMap;
 import java.util.concurrent.Callable;
 import java.util.concurrent.ExecutionException;
@@ -35,6 +37,7 @@ import java.util.concurrent.ThreadFactory;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.BiFunction;
 import java.util.function.Function;
+import java.util.stream.IntStream;
 
 /**
  * Runs the pipeline: discover, parse (in parallel), index the project, project-wide analyses,
@@ -148,7 +151,7 @@ public final class Scanner {
       }
       List<FileContext> contexts =
           runProjectAnalyses(pool, analyses, parsed, index, facts, request, notes);
-      List<Integer> order = java.util.stream.IntStream.range(0, parsed.size()).boxed().toList();
+      List<Integer> order = IntStream.range(0, parsed.size()).boxed().toList();
       List<FileOutcome> perFile = parallel(pool, order,
           i -> checkFile(contexts.get(i) != null ? contexts.get(i).withFreshAnalyses()
               : new FileContext(parsed.get(i), index, facts, request.settings())),
@@ -186,7 +189,7 @@ public final class Scanner {
 
   /** {@link ProjectIndex#build}, with each unit's part done on the pool. */
   private ProjectIndex indexProject(ExecutorService pool, List<CompilationUnit> units) {
-    java.util.Set<String> typeNames = new java.util.HashSet<>();
+    Set<String> typeNames = new HashSet<>();
     Workers workers = onPool(pool);
     workers.map(units, ProjectIndex::declaredTypeNames).forEach(typeNames::addAll);
     return ProjectIndex.of(model, workers.map(units,

@@ -6,6 +6,7 @@ import com.github.javaparser.ast.body.FieldDeclaration;
 import com.github.javaparser.ast.body.TypeDeclaration;
 import com.github.javaparser.ast.body.VariableDeclarator;
 import com.github.javaparser.ast.expr.MethodCallExpr;
+import com.github.javaparser.ast.expr.SimpleName;
 import dev.plumbline.engine.AnalysisSettings;
 import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.ProjectAnalysis;
@@ -24,6 +25,8 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.TreeSet;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.stream.Collectors;
 
 /**
  * Computes {@link ProvenanceSummaries} for the whole project before files are checked: for each
@@ -438,7 +441,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     private final Map<Node, Method> byDeclaration = new IdentityHashMap<>();
     private final Map<Method, List<Method>> callees = new IdentityHashMap<>();
     /** Written by the workers resolving calls, one method each; read after they finished. */
-    private final Map<Method, Set<String>> names = new java.util.concurrent.ConcurrentHashMap<>();
+    private final Map<Method, Set<String>> names = new ConcurrentHashMap<>();
 
     CallGraph(List<Method> methods, Workers workers) {
       this.methods = methods;
@@ -467,9 +470,9 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     }
 
     private List<Method> resolve(Method m) {
-      names.put(m, m.declaration().findAll(com.github.javaparser.ast.expr.SimpleName.class).stream()
-          .map(com.github.javaparser.ast.expr.SimpleName::getIdentifier)
-          .collect(java.util.stream.Collectors.toUnmodifiableSet()));
+      names.put(m, m.declaration().findAll(SimpleName.class).stream()
+          .map(SimpleName::getIdentifier)
+          .collect(Collectors.toUnmodifiableSet()));
       List<Method> out = new ArrayList<>();
       for (MethodCallExpr call : m.declaration().findAll(MethodCallExpr.class)) {
         m.file().types().projectMethod(call)
