@@ -19,6 +19,24 @@ public interface Workers {
    */
   <I, O> List<O> map(List<I> inputs, Function<I, O> work);
 
+  /**
+   * Splits {@code items} into runs of consecutive items of the same file (compared by identity),
+   * in order: each run can be one work item, since a file context serves one thread.
+   */
+  static <T> List<List<T>> runsByFile(List<T> items, Function<T, FileContext> fileOf) {
+    List<List<T>> runs = new ArrayList<>();
+    FileContext current = null;
+    for (T item : items) {
+      FileContext file = fileOf.apply(item);
+      if (runs.isEmpty() || file != current) {
+        runs.add(new ArrayList<>());
+        current = file;
+      }
+      runs.get(runs.size() - 1).add(item);
+    }
+    return runs;
+  }
+
   /** Runs every item on the calling thread, in order. */
   Workers SEQUENTIAL = new Workers() {
     @Override

@@ -24,6 +24,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.TreeSet;
+import java.util.stream.IntStream;
 
 /**
  * Which parameters of each project method reach a training configuration: an argument of a
@@ -64,7 +65,8 @@ public final class ConfigurationReach implements ProjectAnalysis {
     // on nothing else that changes: a method whose callees changed nothing since it was last
     // looked at would get the same answer, so it is skipped. Exactly the same result, faster.
     List<Set<Node>> callees = new ArrayList<>();
-    for (List<Set<Node>> ofFile : workers.map(byFile(owners), range -> range.stream()
+    List<Integer> indices = IntStream.range(0, methods.size()).boxed().toList();
+    for (List<Set<Node>> ofFile : workers.map(Workers.runsByFile(indices, owners::get), run -> run.stream()
         .map(i -> calledProjectMethods(owners.get(i), methods.get(i))).toList())) {
       callees.addAll(ofFile);
     }
@@ -97,18 +99,6 @@ public final class ConfigurationReach implements ProjectAnalysis {
         break;
       }
     }
-  }
-
-  /** Indices of the methods grouped by file, in order: a file context serves one worker. */
-  private static List<List<Integer>> byFile(List<FileContext> owners) {
-    List<List<Integer>> out = new ArrayList<>();
-    for (int i = 0; i < owners.size(); i++) {
-      if (i == 0 || owners.get(i) != owners.get(i - 1)) {
-        out.add(new ArrayList<>());
-      }
-      out.get(out.size() - 1).add(i);
-    }
-    return out;
   }
 
   private static Set<Node> calledProjectMethods(FileContext file, CallableDeclaration<?> m) {

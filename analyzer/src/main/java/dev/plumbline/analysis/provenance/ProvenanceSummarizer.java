@@ -25,8 +25,6 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.TreeSet;
-import java.util.concurrent.ConcurrentHashMap;
-import java.util.stream.Collectors;
 
 /**
  * Computes {@link ProvenanceSummaries} for the whole project before files are checked: for each
@@ -214,10 +212,10 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
           changedNames.add(((VariableDeclarator) field).getNameAsString());
         }
       }
-      for (String name : callGraph.names(m)) {
-        if (changedNames.contains(name)) {
-          return true;
-        }
+      Set<String> names = changedNames;
+      // Rare (its analysis did not converge): any name of a changed field it mentions counts.
+      if (m.declaration().findFirst(SimpleName.class, n -> names.contains(n.getIdentifier())).isPresent()) {
+        return true;
       }
     }
     return false;
@@ -440,8 +438,6 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     private final List<Method> methods;
     private final Map<Node, Method> byDeclaration = new IdentityHashMap<>();
     private final Map<Method, List<Method>> callees = new IdentityHashMap<>();
-    /** Written by the workers resolving calls, one method each; read after they finished. */
-    private final Map<Method, Set<String>> names = new ConcurrentHashMap<>();
 
     CallGraph(List<Method> methods, Workers workers) {
       this.methods = methods;
@@ -449,30 +445,16 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
         byDeclaration.put(m.declaration(), m);
       }
       // Methods come file by file; each file's calls are resolved by one worker.
-      List<List<Method>> byFile = new ArrayList<>();
-      for (Method m : methods) {
-        if (byFile.isEmpty() || byFile.get(byFile.size() - 1).get(0).file() != m.file()) {
-          byFile.add(new ArrayList<>());
-        }
-        byFile.get(byFile.size() - 1).add(m);
-      }
-      List<List<List<Method>>> resolved = workers.map(byFile, ms -> ms.stream().map(this::resolve).toList());
-      for (int f = 0; f < byFile.size(); f++) {
-        for (int i = 0; i < byFile.get(f).size(); i++) {
-          callees.put(byFile.get(f).get(i), resolved.get(f).get(i));
+      List<List<Method>> runs = Workers.runsByFile(methods, Method::file);
+      List<List<List<Method>>> resolved = workers.map(runs, run -> run.stream().map(this::resolve).toList());
+      for (int r = 0; r < runs.size(); r++) {
+        for (int i = 0; i < runs.get(r).size(); i++) {
+          callees.put(runs.get(r).get(i), resolved.get(r).get(i));
         }
       }
-    }
-
-    /** The identifiers a method's code mentions (a superset of the fields it reads). */
-    Set<String> names(Method m) {
-      return names.get(m);
     }
 
     private List<Method> resolve(Method m) {
-      names.put(m, m.declaration().findAll(SimpleName.class).stream()
-          .map(SimpleName::getIdentifier)
-          .collect(Collectors.toUnmodifiableSet()));
       List<Method> out = new ArrayList<>();
       for (MethodCallExpr call : m.declaration().findAll(MethodCallExpr.class)) {
         m.file().types().projectMethod(call)
