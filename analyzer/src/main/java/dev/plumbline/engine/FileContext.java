@@ -10,6 +10,7 @@ import dev.plumbline.flow.CfgBuilder;
 import dev.plumbline.flow.ControlFlowGraph;
 import dev.plumbline.model.ApiModel;
 import dev.plumbline.parse.ParsedSource;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.ProjectIndex;
 import dev.plumbline.types.SymbolTable;
@@ -114,7 +115,7 @@ public final class FileContext {
   public List<ControlFlowGraph> graphs() {
     if (graphs == null) {
       List<ControlFlowGraph> out = new ArrayList<>();
-      source.unit().walk(Node.TreeTraversal.PREORDER, node -> {
+      Subtrees.walk(source.unit(), node -> {
         if (node instanceof CallableDeclaration<?> c) {
           out.add(CfgBuilder.of(c));
         } else if (node instanceof InitializerDeclaration i) {

@@ -133,6 +133,7 @@ public final class Scanner {
 
     ExecutorService pool = Executors.newFixedThreadPool(request.jobs(), workerThreads());
     try {
+      PhaseLog.Mark phase = PhaseLog.start();
       SourceParser parser = new SourceParser();
       List<SourceParser.Outcome> outcomes = parallel(pool, found.files(), parser::parse,
           (file, e) -> new SourceParser.Outcome(Optional.empty(), List.of(fileFailure(
@@ -143,7 +144,9 @@ public final class Scanner {
         o.parsed().ifPresent(parsed::add);
       }
       List<CompilationUnit> units = parsed.stream().map(ParsedSource::unit).toList();
+      phase = PhaseLog.lap("parse", phase);
       ProjectIndex index = indexProject(pool, units);
+      phase = PhaseLog.lap("index", phase);
       ProjectFacts facts = new ProjectFacts();
       List<ProjectAnalysis> analyses = new ArrayList<>(projectAnalyses);
       if (audit) {
@@ -151,12 +154,14 @@ public final class Scanner {
       }
       List<FileContext> contexts =
           runProjectAnalyses(pool, analyses, parsed, index, facts, request, notes);
+      phase = PhaseLog.lap("project analyses, in all", phase);
       List<Integer> order = IntStream.range(0, parsed.size()).boxed().toList();
       List<FileOutcome> perFile = parallel(pool, order,
           i -> checkFile(contexts.get(i) != null ? contexts.get(i).withFreshAnalyses()
               : new FileContext(parsed.get(i), index, facts, request.settings())),
           (i, e) -> new FileOutcome(List.of(), List.of(fileFailure("notification.file-analysis-failed",
               parsed.get(i).file().uri(), describe(e))), List.of(), lineCount(parsed.get(i).text())));
+      phase = PhaseLog.lap("rules per file", phase);
       List<Finding> findings = new ArrayList<>();
       List<CallableSummary> callables = new ArrayList<>();
       Map<String, String> sources = new TreeMap<>();
@@ -203,11 +208,13 @@ public final class Scanner {
   private List<FileContext> runProjectAnalyses(ExecutorService pool, List<ProjectAnalysis> analyses,
       List<ParsedSource> parsed, ProjectIndex index, ProjectFacts facts, ScanRequest request,
       List<Notification> notes) {
+    PhaseLog.Mark contextsStart = PhaseLog.start();
     List<FileContext> contexts = parallel(pool, parsed, p -> {
       FileContext context = new FileContext(p, index, facts, request.settings());
       context.graphs(); // built here in parallel, before analyses that visit every file in turn
       return context;
     }, (p, e) -> null);
+    PhaseLog.lap("contexts and graphs", contextsStart);
     if (analyses.isEmpty()) {
       return contexts;
     }
@@ -215,7 +222,9 @@ public final class Scanner {
     Workers workers = onPool(pool);
     for (ProjectAnalysis pa : analyses) {
       try {
+        PhaseLog.Mark analysisStart = PhaseLog.start();
         pa.compute(usable, index, facts, workers);
+        PhaseLog.lap("  " + pa.getClass().getSimpleName(), analysisStart);
       } catch (RuntimeException | Error e) {
         notes.add(new Notification(Severity.ERROR, Message.of("notification.project-analysis-failed",
             pa.getClass().getSimpleName(), describe(e)), Optional.empty(), true));

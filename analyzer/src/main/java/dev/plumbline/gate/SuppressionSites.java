@@ -16,6 +16,7 @@ import com.github.javaparser.ast.stmt.BlockStmt;
 import com.github.javaparser.ast.stmt.Statement;
 import dev.plumbline.engine.AnalysisKey;
 import dev.plumbline.fix.TextLines;
+import dev.plumbline.parse.Subtrees;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
@@ -115,7 +116,7 @@ public final class SuppressionSites {
         .filter(Comment::isLineComment).map(Comment::asLineComment)
         .filter(c -> c.getBegin().isPresent())
         .toList();
-    for (AnnotationExpr a : unit.findAll(AnnotationExpr.class)) {
+    for (AnnotationExpr a : Subtrees.findAll(unit, AnnotationExpr.class)) {
       String name = a.getNameAsString();
       if (!name.equals("SuppressWarnings") && !name.equals("java.lang.SuppressWarnings")) {
         continue;
@@ -256,12 +257,12 @@ public final class SuppressionSites {
       }
     }
     int last = target;
-    for (Statement s : unit.findAll(Statement.class)) {
+    for (Statement s : Subtrees.findAll(unit, Statement.class)) {
       if (s.getBegin().map(p -> p.line).orElse(-1) == target && isSimple(s)) {
         last = Math.max(last, s.getEnd().get().line);
       }
     }
-    for (BodyDeclaration<?> d : unit.findAll(BodyDeclaration.class)) {
+    for (BodyDeclaration<?> d : Subtrees.findAll(unit, BodyDeclaration.class)) {
       if (d.isFieldDeclaration() && d.getBegin().map(p -> p.line).orElse(-1) == target) {
         last = Math.max(last, d.getEnd().get().line);
       }
@@ -271,7 +272,7 @@ public final class SuppressionSites {
 
   private static boolean isSimple(Statement s) {
     return (s.isExpressionStmt() || s.isReturnStmt() || s.isThrowStmt())
-        && s.findFirst(BlockStmt.class).isEmpty();
+        && Subtrees.findFirst(s, BlockStmt.class).isEmpty();
   }
 
   private static boolean isBlankOrComment(String line) {

@@ -131,18 +131,17 @@ public final class SourceParser {
    * Keeps each node's range and lets go of its tokens. JavaParser links every token of the file
    * (whitespace included) into one list that any node's token range keeps alive; nothing here
    * reads tokens, and they are most of a tree's memory, which matters because all trees of a
-   * project stay in memory until the scan ends (the project index refers to declarations).
+   * project stay in memory until the scan ends (the project index refers to declarations). The
+   * ranges kept are {@link Subtrees.IndexedRange}s, for fast subtree queries.
    */
   private static void dropTokens(CompilationUnit unit) {
-    unit.walk(node -> {
-      Optional<Range> range = node.getRange();
-      node.setTokenRange(null);
-      range.ifPresent(node::setRange);
-    });
+    Subtrees.index(unit);
     for (Comment comment : unit.getAllComments()) {
-      Optional<Range> range = comment.getRange();
-      comment.setTokenRange(null);
-      range.ifPresent(comment::setRange);
+      if (!(comment.getRange().orElse(null) instanceof Subtrees.IndexedRange)) {
+        Optional<Range> range = comment.getRange();
+        comment.setTokenRange(null);
+        range.ifPresent(comment::setRange);
+      }
     }
   }
 

@@ -12,6 +12,7 @@ import com.github.javaparser.ast.body.TypeDeclaration;
 import com.github.javaparser.ast.type.ClassOrInterfaceType;
 import dev.plumbline.model.ApiModel;
 import dev.plumbline.model.TypeRole;
+import dev.plumbline.parse.Subtrees;
 import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.Collection;
@@ -121,7 +122,7 @@ public final class ProjectIndex {
   /** Qualified names of the types a unit declares (local classes have none). */
   public static Set<String> declaredTypeNames(CompilationUnit unit) {
     Set<String> names = new HashSet<>();
-    for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
+    for (TypeDeclaration<?> type : Subtrees.findAll(unit, TypeDeclaration.class)) {
       type.getFullyQualifiedName().ifPresent(names::add);
     }
     return names;
@@ -135,7 +136,7 @@ public final class ProjectIndex {
       Set<String> typeNames) {
     TypeResolver resolver = new TypeResolver(unit, model, typeNames::contains);
     Map<String, ProjectType> types = new LinkedHashMap<>();
-    for (TypeDeclaration<?> type : unit.findAll(TypeDeclaration.class)) {
+    for (TypeDeclaration<?> type : Subtrees.findAll(unit, TypeDeclaration.class)) {
       Optional<String> qualified = type.getFullyQualifiedName();
       if (qualified.isEmpty() || types.containsKey(qualified.get())) {
         continue; // local classes have no qualified name; duplicates keep the first

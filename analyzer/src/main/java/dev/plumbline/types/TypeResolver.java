@@ -8,6 +8,7 @@ import com.github.javaparser.ast.type.ClassOrInterfaceType;
 import com.github.javaparser.ast.type.Type;
 import dev.plumbline.model.ApiModel;
 import dev.plumbline.model.ApiType;
+import dev.plumbline.parse.Subtrees;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
@@ -62,7 +63,7 @@ public final class TypeResolver {
         singleImports.put(name.substring(name.lastIndexOf('.') + 1), name);
       }
     }
-    for (TypeDeclaration<?> t : unit.findAll(TypeDeclaration.class)) {
+    for (TypeDeclaration<?> t : Subtrees.findAll(unit, TypeDeclaration.class)) {
       t.getFullyQualifiedName().ifPresent(q -> localTypes.putIfAbsent(t.getNameAsString(), q));
     }
   }

@@ -19,6 +19,7 @@ import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
 import dev.plumbline.model.TypeRole;
 import dev.plumbline.parse.NotebookSource;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ProjectIndex;
 import java.util.ArrayDeque;
 import java.util.ArrayList;
@@ -61,7 +62,7 @@ public final class EntryPointAnalysis {
       uses.put(u.call(), u);
     }
     List<CallableSummary> out = new ArrayList<>();
-    for (CallableDeclaration<?> c : file.source().unit().findAll(CallableDeclaration.class)) {
+    for (CallableDeclaration<?> c : Subtrees.findAll(file.source().unit(), CallableDeclaration.class)) {
       String owner = ownerOf(c);
       if (owner == null || (c instanceof MethodDeclaration m && m.getBody().isEmpty())) {
         continue;
@@ -69,7 +70,7 @@ public final class EntryPointAnalysis {
       List<Location> trains = new ArrayList<>();
       List<Evaluation> evaluations = new ArrayList<>();
       Set<String> calls = new TreeSet<>();
-      for (MethodCallExpr call : c.findAll(MethodCallExpr.class)) {
+      for (MethodCallExpr call : Subtrees.findAll(c, MethodCallExpr.class)) {
         if (nearestCallable(call) != c) {
           continue; // inside a nested or anonymous class: its own callable
         }

@@ -14,6 +14,7 @@ import dev.plumbline.engine.Workers;
 import dev.plumbline.flow.ControlFlowGraph;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.ProjectIndex;
 import java.util.ArrayList;
@@ -64,11 +65,17 @@ public final class ConfigurationReach implements ProjectAnalysis {
     // What a method's parameters reach depends on what the project methods it calls reach, and
     // on nothing else that changes: a method whose callees changed nothing since it was last
     // looked at would get the same answer, so it is skipped. Exactly the same result, faster.
+    // A method none of whose calls configures a library object, and whose project callees reach
+    // nothing yet, reaches nothing: no parameter needs its influence spread (most methods).
     List<Set<Node>> callees = new ArrayList<>();
+    List<Boolean> configuresLibrary = new ArrayList<>();
     List<Integer> indices = IntStream.range(0, methods.size()).boxed().toList();
-    for (List<Set<Node>> ofFile : workers.map(Workers.runsByFile(indices, owners::get), run -> run.stream()
-        .map(i -> calledProjectMethods(owners.get(i), methods.get(i))).toList())) {
-      callees.addAll(ofFile);
+    for (List<CallFacts> ofFile : workers.map(Workers.runsByFile(indices, owners::get), run -> run.stream()
+        .map(i -> callFacts(owners.get(i), methods.get(i))).toList())) {
+      for (CallFacts facts : ofFile) {
+        callees.add(facts.projectCallees());
+        configuresLibrary.add(facts.configuresLibrary());
+      }
     }
     Map<Node, Integer> changedAt = new IdentityHashMap<>();
     int[] lookedAt = new int[methods.size()];
@@ -82,6 +89,10 @@ public final class ConfigurationReach implements ProjectAnalysis {
           continue;
         }
         lookedAt[i] = step;
+        if (m.getParameters().isEmpty()
+            || !configuresLibrary.get(i) && !reachesAnything(callees.get(i), result)) {
+          continue;
+        }
         Set<Integer> reach = new TreeSet<>(result.of(m));
         List<Parameter> params = m.getParameters();
         for (int p = 0; p < params.size(); p++) {
@@ -101,12 +112,42 @@ public final class ConfigurationReach implements ProjectAnalysis {
     }
   }
 
-  private static Set<Node> calledProjectMethods(FileContext file, CallableDeclaration<?> m) {
-    Set<Node> out = Collections.newSetFromMap(new IdentityHashMap<>());
-    for (MethodCallExpr call : m.findAll(MethodCallExpr.class)) {
-      file.types().projectMethod(call).ifPresent(pm -> out.add(pm.declaration()));
+  /** The project methods a method calls, and whether it calls a library configuration point. */
+  private record CallFacts(Set<Node> projectCallees, boolean configuresLibrary) {}
+
+  private static CallFacts callFacts(FileContext file, CallableDeclaration<?> m) {
+    Set<Node> callees = Collections.newSetFromMap(new IdentityHashMap<>());
+    boolean configures = false;
+    ExpressionTypes types = file.types();
+    for (Node n : Subtrees.findAll(m, Node.class, x -> x instanceof MethodCallExpr || x instanceof ObjectCreationExpr)) {
+      if (n instanceof MethodCallExpr call) {
+        Optional<ProjectIndex.ProjectMethod> pm = types.projectMethod(call);
+        if (pm.isPresent()) {
+          callees.add(pm.get().declaration());
+          continue;
+        }
+        if (!configures) {
+          configures = isConfigurationPoint(types.apiMethod(call));
+        }
+      } else if (!configures) {
+        configures = isConfigurationPoint(types.apiConstructor((ObjectCreationExpr) n));
+      }
     }
-    return out;
+    return new CallFacts(callees, configures);
+  }
+
+  private static boolean isConfigurationPoint(Optional<ApiMethod> api) {
+    return api.isPresent()
+        && (api.get().effect() == Effect.CONFIGURE || api.get().attribute("batchArg") != null);
+  }
+
+  private static boolean reachesAnything(Set<Node> callees, Parameters known) {
+    for (Node c : callees) {
+      if (!known.of(c).isEmpty()) {
+        return true;
+      }
+    }
+    return false;
   }
 
   /**
@@ -138,7 +179,7 @@ public final class ConfigurationReach implements ProjectAnalysis {
   static List<Node> configurationPoints(ExpressionTypes types, Node body, Influence influence,
       Parameters known) {
     List<Node> out = new ArrayList<>();
-    for (Node n : body.findAll(Node.class, x -> x instanceof MethodCallExpr || x instanceof ObjectCreationExpr)) {
+    for (Node n : Subtrees.findAll(body, Node.class, x -> x instanceof MethodCallExpr || x instanceof ObjectCreationExpr)) {
       List<Expression> args;
       Optional<ApiMethod> api;
       if (n instanceof MethodCallExpr call) {

@@ -8,6 +8,7 @@ import com.github.javaparser.ast.expr.LambdaExpr;
 import com.github.javaparser.ast.expr.NameExpr;
 import com.github.javaparser.ast.expr.ThisExpr;
 import com.github.javaparser.ast.expr.UnaryExpr;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.SymbolTable;
 import dev.plumbline.types.Variable;
 import java.util.Collections;
@@ -49,12 +50,12 @@ final class Influence {
     int rounds = 0;
     while (changed && rounds++ < 32) {
       changed = false;
-      for (VariableDeclarator d : body.findAll(VariableDeclarator.class)) {
+      for (VariableDeclarator d : Subtrees.findAll(body, VariableDeclarator.class)) {
         if (d.getInitializer().isPresent() && mentions(d.getInitializer().get())) {
           changed |= carriers.add(symbols.variableOf(d));
         }
       }
-      for (AssignExpr as : body.findAll(AssignExpr.class)) {
+      for (AssignExpr as : Subtrees.findAll(body, AssignExpr.class)) {
         if (mentions(as.getValue())) {
           Optional<Variable> target = target(as);
           if (target.isPresent()) {

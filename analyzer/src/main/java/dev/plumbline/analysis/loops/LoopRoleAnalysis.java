@@ -22,6 +22,7 @@ import dev.plumbline.analysis.provenance.ProvenanceFacts;
 import dev.plumbline.engine.AnalysisKey;
 import dev.plumbline.engine.FileContext;
 import dev.plumbline.model.ApiMethod;
+import dev.plumbline.parse.Subtrees;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -68,7 +69,7 @@ public final class LoopRoleAnalysis {
   private void run(LoopRoleFacts facts) {
     ProvenanceFacts provenance = file.analysis(ProvenanceAnalysis.KEY);
     List<LoopRoleFacts.HyperparameterLoop> loops = new ArrayList<>();
-    for (Statement loop : file.source().unit().findAll(Statement.class, LoopRoleAnalysis::isLoop)) {
+    for (Statement loop : Subtrees.findAll(file.source().unit(), Statement.class, LoopRoleAnalysis::isLoop)) {
       hyperparameterLoop(loop).ifPresent(l -> {
         loops.add(l);
         facts.add(l);
@@ -152,7 +153,7 @@ public final class LoopRoleAnalysis {
       score.seed(e.call());
       seeded = true;
     } else if (e.model() instanceof NameExpr model) {
-      for (MethodCallExpr read : body.findAll(MethodCallExpr.class)) {
+      for (MethodCallExpr read : Subtrees.findAll(body, MethodCallExpr.class)) {
         Optional<ApiMethod> m = file.types().apiMethod(read);
         if (m.isPresent() && "validation".equals(m.get().attribute("score")) && rootedAt(read, model)) {
           score.seed(read);
@@ -164,7 +165,7 @@ public final class LoopRoleAnalysis {
       return Optional.empty();
     }
     score.spreadThrough(body);
-    for (Statement s : body.findAll(Statement.class)) {
+    for (Statement s : Subtrees.findAll(body, Statement.class)) {
       if (s.findAncestor(LambdaExpr.class).filter(l -> isInside(l, body) && l != body).isPresent()) {
         continue;
       }
@@ -216,7 +217,7 @@ public final class LoopRoleAnalysis {
   }
 
   private static boolean containsExit(Statement s) {
-    return !s.findAll(BreakStmt.class).isEmpty() || !s.findAll(ReturnStmt.class).isEmpty();
+    return Subtrees.contains(s, BreakStmt.class) || Subtrees.contains(s, ReturnStmt.class);
   }
 
   /**
@@ -224,17 +225,17 @@ public final class LoopRoleAnalysis {
    * score (a model, an epoch number, a setting), or a call that is not output (saving a model).
    */
   private Optional<Node> kept(Statement branch, Influence score) {
-    for (AssignExpr as : branch.findAll(AssignExpr.class)) {
+    for (AssignExpr as : Subtrees.findAll(branch, AssignExpr.class)) {
       if (!score.mentions(as.getValue())) {
         return Optional.of(as);
       }
     }
-    for (VariableDeclarator d : branch.findAll(VariableDeclarator.class)) {
+    for (VariableDeclarator d : Subtrees.findAll(branch, VariableDeclarator.class)) {
       if (d.getInitializer().isPresent() && !score.mentions(d.getInitializer().get())) {
         return Optional.of(d);
       }
     }
-    for (ExpressionStmt es : branch.findAll(ExpressionStmt.class)) {
+    for (ExpressionStmt es : Subtrees.findAll(branch, ExpressionStmt.class)) {
       if (es.getExpression() instanceof MethodCallExpr call && !OUTPUT_ONLY.contains(call.getNameAsString())) {
         return Optional.of(call);
       }

@@ -13,6 +13,7 @@ import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.ProjectFacts;
 import dev.plumbline.engine.Workers;
 import dev.plumbline.flow.ControlFlowGraph;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ProjectIndex;
 import java.util.ArrayDeque;
 import java.util.ArrayList;
@@ -93,7 +94,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     CallGraph callGraph = new CallGraph(methods, workers);
     List<List<List<Method>>> levels = callGraph.levels();
     List<FileFields> fields = workers.map(files,
-        f -> new FileFields(f, f.source().unit().findAll(FieldDeclaration.class)));
+        f -> new FileFields(f, Subtrees.findAll(f.source().unit(), FieldDeclaration.class)));
     Set<Node> changedFields = null; // null: first round, summarize everything
     for (int round = 0; round < FIELD_ROUNDS; round++) {
       Set<Method> changedMethods = Collections.newSetFromMap(new IdentityHashMap<>());
@@ -214,7 +215,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
       }
       Set<String> names = changedNames;
       // Rare (its analysis did not converge): any name of a changed field it mentions counts.
-      if (m.declaration().findFirst(SimpleName.class, n -> names.contains(n.getIdentifier())).isPresent()) {
+      if (Subtrees.findFirst(m.declaration(), SimpleName.class, n -> names.contains(n.getIdentifier())).isPresent()) {
         return true;
       }
     }
@@ -456,7 +457,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
 
     private List<Method> resolve(Method m) {
       List<Method> out = new ArrayList<>();
-      for (MethodCallExpr call : m.declaration().findAll(MethodCallExpr.class)) {
+      for (MethodCallExpr call : Subtrees.findAll(m.declaration(), MethodCallExpr.class)) {
         m.file().types().projectMethod(call)
             .map(pm -> byDeclaration.get(pm.declaration()))
             .filter(callee -> !out.contains(callee))

@@ -7,6 +7,7 @@ import dev.plumbline.engine.ProjectFacts;
 import dev.plumbline.engine.Workers;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ProjectIndex;
 import java.util.List;
 import java.util.Optional;
@@ -42,7 +43,7 @@ public final class ProjectSeeding implements ProjectAnalysis {
 
   private static Set<String> seededIn(FileContext file) {
     Set<String> scopes = new TreeSet<>();
-    for (MethodCallExpr call : file.source().unit().findAll(MethodCallExpr.class)) {
+    for (MethodCallExpr call : Subtrees.findAll(file.source().unit(), MethodCallExpr.class)) {
       Optional<ApiMethod> m = file.types().apiMethod(call);
       if (m.isPresent() && m.get().effect() == Effect.SEED && m.get().attribute("scope") != null) {
         scopes.add(m.get().attribute("scope"));

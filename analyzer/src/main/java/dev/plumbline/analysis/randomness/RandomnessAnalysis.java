@@ -19,6 +19,7 @@ import dev.plumbline.engine.FileContext;
 import dev.plumbline.flow.AstText;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.Variable;
 import java.util.Optional;
 import java.util.Set;
@@ -95,7 +96,7 @@ public final class RandomnessAnalysis {
             call, subject, null));
       }
     }
-    for (MethodCallExpr call : file.source().unit().findAll(MethodCallExpr.class)) {
+    for (MethodCallExpr call : Subtrees.findAll(file.source().unit(), MethodCallExpr.class)) {
       Optional<ApiMethod> m = file.types().apiMethod(call);
       if (m.isPresent() && m.get().attribute("shuffleArg") != null && seeded != null && !seeded.seeded("djl")) {
         int i = m.get().intAttribute("shuffleArg", 0);
@@ -108,7 +109,7 @@ public final class RandomnessAnalysis {
         }
       }
     }
-    for (ObjectCreationExpr oce : file.source().unit().findAll(ObjectCreationExpr.class)) {
+    for (ObjectCreationExpr oce : Subtrees.findAll(file.source().unit(), ObjectCreationExpr.class)) {
       Optional<ApiMethod> ctor = file.types().apiConstructor(oce);
       if (ctor.isPresent() && "clock".equals(ctor.get().attribute("seedDefault")) && !seededBuilder(oce)
           && !onlyBuildsIdleNetworks(chainEnd(oce))) {
@@ -150,7 +151,7 @@ public final class RandomnessAnalysis {
     if (body == null) {
       return true;
     }
-    for (NameExpr use : body.findAll(NameExpr.class)) {
+    for (NameExpr use : Subtrees.findAll(body, NameExpr.class)) {
       if (!file.types().symbols().resolve(use).filter(v -> v == builder).isPresent()) {
         continue;
       }
@@ -218,7 +219,7 @@ public final class RandomnessAnalysis {
     if (v.isField() || body == null) {
       return false;
     }
-    for (NameExpr use : body.findAll(NameExpr.class)) {
+    for (NameExpr use : Subtrees.findAll(body, NameExpr.class)) {
       if (!file.types().symbols().resolve(use).filter(x -> x == v).isPresent()) {
         continue;
       }
@@ -271,7 +272,7 @@ public final class RandomnessAnalysis {
       return Optional.empty();
     }
     Variable variable = v.get();
-    for (NameExpr use : scope.findAll(NameExpr.class)) {
+    for (NameExpr use : Subtrees.findAll(scope, NameExpr.class)) {
       if (!file.types().symbols().resolve(use).filter(x -> x == variable).isPresent()) {
         continue;
       }

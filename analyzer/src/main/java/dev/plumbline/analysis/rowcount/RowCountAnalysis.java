@@ -41,6 +41,7 @@ import dev.plumbline.flow.ForwardSolver;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
 import dev.plumbline.model.TypeRole;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.ProjectIndex;
 import dev.plumbline.types.Variable;
@@ -97,7 +98,7 @@ public final class RowCountAnalysis implements FlowAnalysis<SizeState> {
     RowCountSummaries.Published published = file.projectFacts().get(RowCountSummaries.Published.class);
     Summaries summaries = published == null ? Summaries.NONE : published::of;
     Map<Node, List<MethodCallExpr>> evaluationsByBody = new IdentityHashMap<>();
-    for (MethodCallExpr call : file.source().unit().findAll(MethodCallExpr.class)) {
+    for (MethodCallExpr call : Subtrees.findAll(file.source().unit(), MethodCallExpr.class)) {
       Optional<ApiMethod> m = file.types().apiMethod(call);
       if (m.isPresent() && m.get().effect() == Effect.EVALUATE) {
         Node body = ownBody(call);

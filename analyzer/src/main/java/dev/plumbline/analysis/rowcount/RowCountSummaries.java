@@ -7,6 +7,7 @@ import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.ProjectFacts;
 import dev.plumbline.engine.Workers;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ProjectIndex;
 import java.util.Collections;
 import java.util.IdentityHashMap;
@@ -34,7 +35,7 @@ public final class RowCountSummaries implements ProjectAnalysis {
       Workers workers) {
     Computer computer = new Computer(files);
     for (FileContext file : files) {
-      for (MethodDeclaration m : file.source().unit().findAll(MethodDeclaration.class)) {
+      for (MethodDeclaration m : Subtrees.findAll(file.source().unit(), MethodDeclaration.class)) {
         if (m.getBody().isPresent()) {
           computer.summary(m);
         }

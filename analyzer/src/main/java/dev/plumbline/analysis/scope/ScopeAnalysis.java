@@ -22,6 +22,7 @@ import dev.plumbline.flow.ForwardSolver;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
 import dev.plumbline.model.TypeRole;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.ProjectIndex;
 import dev.plumbline.types.Variable;
@@ -95,7 +96,7 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
       new ScopeAnalysis(file, g, EntryContext.NORMAL, summaries).run(facts);
     }
     TypeTraits traits = file.analysis(TypeTraits.KEY);
-    for (Statement loop : file.source().unit().findAll(Statement.class, Loops::isLoop)) {
+    for (Statement loop : Subtrees.findAll(file.source().unit(), Statement.class, Loops::isLoop)) {
       facts.loop(loop, traits(traits, summaries, loop));
     }
     return facts;
@@ -347,7 +348,7 @@ public final class ScopeAnalysis implements FlowAnalysis<ScopeState> {
   static ScopeFacts.LoopTraits traits(TypeTraits traits, ScopeSummaries summaries, Statement loop) {
     boolean records = false;
     boolean sameDiff = false;
-    for (MethodCallExpr call : loop.findAll(MethodCallExpr.class, c -> Loops.perIteration(loop, c))) {
+    for (MethodCallExpr call : Subtrees.findAll(loop, MethodCallExpr.class, c -> Loops.perIteration(loop, c))) {
       records |= recordsGradients(traits, summaries, call);
       sameDiff |= runsSameDiff(traits, call);
     }

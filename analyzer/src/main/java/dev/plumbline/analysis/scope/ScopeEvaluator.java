@@ -32,6 +32,7 @@ import dev.plumbline.analysis.scope.TensorValue.Kind;
 import dev.plumbline.flow.CfgNode;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ProjectIndex;
 import dev.plumbline.types.Variable;
 import java.util.ArrayList;
@@ -345,12 +346,12 @@ final class ScopeEvaluator {
    */
   private boolean carriesOldValue(Expression e, Variable v) {
     List<Expression> reads = new ArrayList<>();
-    for (NameExpr n : e.findAll(NameExpr.class)) {
+    for (NameExpr n : Subtrees.findAll(e, NameExpr.class)) {
       if (a.types.symbols().resolve(n).orElse(null) == v) {
         reads.add(n);
       }
     }
-    for (FieldAccessExpr fa : e.findAll(FieldAccessExpr.class)) {
+    for (FieldAccessExpr fa : Subtrees.findAll(e, FieldAccessExpr.class)) {
       if (fa.getScope() instanceof ThisExpr
           && a.types.symbols().field(fa, fa.getNameAsString()).orElse(null) == v) {
         reads.add(fa);
@@ -788,13 +789,13 @@ final class ScopeEvaluator {
 
   /** Whether each iteration of {@code loop} may empty or replace the container {@code holder}. */
   private boolean emptiedEachIteration(Variable holder, Statement loop) {
-    for (MethodCallExpr call : loop.findAll(MethodCallExpr.class, c -> Loops.perIteration(loop, c))) {
+    for (MethodCallExpr call : Subtrees.findAll(loop, MethodCallExpr.class, c -> Loops.perIteration(loop, c))) {
       if (call.getScope().isPresent() && variableOf(call.getScope().get()) == holder
           && a.traits.apiMethod(call).map(m -> m.effect() == Effect.CLEAR).orElse(false)) {
         return true;
       }
     }
-    for (AssignExpr as : loop.findAll(AssignExpr.class, x -> Loops.perIteration(loop, x))) {
+    for (AssignExpr as : Subtrees.findAll(loop, AssignExpr.class, x -> Loops.perIteration(loop, x))) {
       if (variableOf(as.getTarget()) == holder) {
         return true;
       }

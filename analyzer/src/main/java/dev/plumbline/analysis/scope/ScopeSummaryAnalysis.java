@@ -10,6 +10,7 @@ import dev.plumbline.engine.ProjectAnalysis;
 import dev.plumbline.engine.ProjectFacts;
 import dev.plumbline.engine.Workers;
 import dev.plumbline.flow.ControlFlowGraph;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ProjectIndex;
 import java.util.ArrayList;
 import java.util.Collections;
@@ -75,7 +76,7 @@ public final class ScopeSummaryAnalysis implements ProjectAnalysis {
         if (g.callable() instanceof MethodDeclaration m) {
           graphs.add(g);
           Set<CallableDeclaration<?>> called = Collections.newSetFromMap(new IdentityHashMap<>());
-          for (MethodCallExpr call : m.findAll(MethodCallExpr.class)) {
+          for (MethodCallExpr call : Subtrees.findAll(m, MethodCallExpr.class)) {
             file.types().projectMethod(call).ifPresent(pm -> called.add(pm.declaration()));
           }
           callees.add(called);
@@ -118,7 +119,7 @@ public final class ScopeSummaryAnalysis implements ProjectAnalysis {
   private static HelperSummary summarize(FileContext file, ControlFlowGraph g, MethodDeclaration m,
       ScopeSummaries summaries) {
     boolean records = false;
-    for (MethodCallExpr call : m.findAll(MethodCallExpr.class, c -> Loops.within(c, m))) {
+    for (MethodCallExpr call : Subtrees.findAll(m, MethodCallExpr.class, c -> Loops.within(c, m))) {
       records |= ScopeAnalysis.recordsGradients(file.analysis(TypeTraits.KEY), summaries, call);
     }
     ScopeAnalysis probe = new ScopeAnalysis(file, g, ScopeAnalysis.EntryContext.NORMAL, summaries);

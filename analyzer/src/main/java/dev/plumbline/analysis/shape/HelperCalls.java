@@ -16,6 +16,7 @@ import dev.plumbline.flow.ControlFlowGraph;
 import dev.plumbline.flow.FlowResult;
 import dev.plumbline.flow.ForwardSolver;
 import dev.plumbline.model.Effect;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.ProjectIndex;
 import dev.plumbline.types.Variable;
@@ -227,8 +228,8 @@ final class HelperCalls {
   private static Summary summarize(MethodDeclaration decl, ExpressionTypes types) {
     boolean[] checks = new boolean[decl.getParameters().size()];
     List<Expression> conditions = new ArrayList<>();
-    decl.walk(Node.TreeTraversal.PREORDER, n -> {
-      if (n instanceof IfStmt i && !i.getThenStmt().findAll(ThrowStmt.class).isEmpty()) {
+    Subtrees.walk(decl, n -> {
+      if (n instanceof IfStmt i && Subtrees.contains(i.getThenStmt(), ThrowStmt.class)) {
         conditions.add(i.getCondition());
       } else if (n instanceof AssertStmt a) {
         conditions.add(a.getCheck());
@@ -238,7 +239,7 @@ final class HelperCalls {
       }
     });
     for (Expression condition : conditions) {
-      condition.walk(Node.TreeTraversal.PREORDER, n -> {
+      Subtrees.walk(condition, n -> {
         if (n instanceof Expression x) {
           ShapeChecks.query(x, types).ifPresent(q -> {
             if (ShapeEvaluator.unwrap(q.subject()) instanceof NameExpr name) {

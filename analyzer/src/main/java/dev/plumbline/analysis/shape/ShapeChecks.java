@@ -1,6 +1,5 @@
 package dev.plumbline.analysis.shape;
 
-import com.github.javaparser.ast.Node;
 import com.github.javaparser.ast.body.CallableDeclaration;
 import com.github.javaparser.ast.body.Parameter;
 import com.github.javaparser.ast.expr.ArrayAccessExpr;
@@ -15,6 +14,7 @@ import com.github.javaparser.ast.stmt.AssertStmt;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
 import dev.plumbline.model.TypeRole;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.Variable;
 import java.util.ArrayList;
@@ -225,7 +225,7 @@ final class ShapeChecks {
   /** Subjects of the shape queries inside {@code e}, in source order. */
   List<Expression> inspected(Expression e) {
     List<Expression> out = new ArrayList<>();
-    e.walk(Node.TreeTraversal.PREORDER, n -> {
+    Subtrees.walk(e, n -> {
       if (n instanceof Expression x) {
         query(x, types).ifPresent(q -> out.add(q.subject()));
       }
@@ -287,7 +287,7 @@ final class ShapeChecks {
    */
   private Expression dataIn(Expression check) {
     List<Expression> found = new ArrayList<>();
-    check.walk(Node.TreeTraversal.PREORDER, n -> {
+    Subtrees.walk(check, n -> {
       boolean read = n.getParentNode().orElse(null) instanceof MethodCallExpr;
       if (found.isEmpty() && read && (n instanceof NameExpr || n instanceof FieldAccessExpr) && n instanceof Expression x) {
         String type = types.typeOf(x);
@@ -303,7 +303,7 @@ final class ShapeChecks {
   /** A parameter of a non-private method or constructor that the condition reads, if any. */
   private Expression inputIn(Expression check) {
     List<Expression> found = new ArrayList<>();
-    check.walk(Node.TreeTraversal.PREORDER, n -> {
+    Subtrees.walk(check, n -> {
       if (found.isEmpty() && n instanceof NameExpr name) {
         types.symbols().resolve(name).ifPresent(v -> {
           if (v.declaration() instanceof Parameter p

@@ -34,6 +34,7 @@ import com.github.javaparser.ast.stmt.YieldStmt;
 import dev.plumbline.flow.CfgNode;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.TypeRole;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.ProjectIndex;
 import dev.plumbline.types.Variable;
@@ -554,7 +555,7 @@ final class ShapeEvaluator {
       if (scope == null) {
         return true;
       }
-      for (ArrayAccessExpr access : scope.findAll(ArrayAccessExpr.class)) {
+      for (ArrayAccessExpr access : Subtrees.findAll(scope, ArrayAccessExpr.class)) {
         Node parent = access.getParentNode().orElse(null);
         boolean store = parent instanceof AssignExpr as && as.getTarget() == access
             || parent instanceof UnaryExpr u && u.getExpression() == access && isStep(u.getOperator());

@@ -18,6 +18,7 @@ import dev.plumbline.engine.FileContext;
 import dev.plumbline.finding.Edit;
 import dev.plumbline.finding.Message;
 import dev.plumbline.fix.SourceEdits;
+import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.SymbolTable;
 import dev.plumbline.types.Variable;
 import java.util.EnumSet;
@@ -125,7 +126,7 @@ final class FitOnTrainingPart {
   }
 
   private static boolean reassigned(Node callable, Variable v, SymbolTable symbols) {
-    return callable.findAll(AssignExpr.class).stream()
+    return Subtrees.findAll(callable, AssignExpr.class).stream()
         .anyMatch(a -> a.getTarget() instanceof NameExpr n && symbols.resolve(n).orElse(null) == v);
   }
 
@@ -166,7 +167,7 @@ final class FitOnTrainingPart {
   }
 
   private static List<NameExpr> uses(Statement statement, Variable v, SymbolTable symbols) {
-    return statement.findAll(NameExpr.class).stream()
+    return Subtrees.findAll(statement, NameExpr.class).stream()
         .filter(n -> symbols.resolve(n).orElse(null) == v)
         .toList();
   }
