@@ -132,10 +132,12 @@ public final class SourceParser {
    * (whitespace included) into one list that any node's token range keeps alive; nothing here
    * reads tokens, and they are most of a tree's memory, which matters because all trees of a
    * project stay in memory until the scan ends (the project index refers to declarations). The
-   * ranges kept are {@link Subtrees.IndexedRange}s, for fast subtree queries.
+   * ranges kept are {@link Subtrees.IndexedRange}s, for fast subtree queries. For the same reason
+   * the tree's empty lists are shared ({@link TreeCompactor}).
    */
   private static void dropTokens(CompilationUnit unit) {
     Subtrees.index(unit);
+    Subtrees.walk(unit, TreeCompactor::compact);
     for (Comment comment : unit.getAllComments()) {
       if (!(comment.getRange().orElse(null) instanceof Subtrees.IndexedRange)) {
         Optional<Range> range = comment.getRange();
