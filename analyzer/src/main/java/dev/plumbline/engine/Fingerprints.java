@@ -9,6 +9,7 @@ import java.security.NoSuchAlgorithmException;
 import java.util.HashMap;
 import java.util.HexFormat;
 import java.util.Map;
+import java.util.regex.Pattern;
 
 /**
  * Stable identities for findings, independent of line numbers: a finding keeps its fingerprint
@@ -20,12 +21,14 @@ import java.util.Map;
  * Hashed with SHA-256, 16 hex digits kept.
  */
 final class Fingerprints {
+  private static final Pattern WHITESPACE = Pattern.compile("\\s+");
+
   private final Map<String, Integer> occurrences = new HashMap<>();
 
   /** Call in report order within one file so occurrence numbers are deterministic. */
   String next(String ruleId, String uri, Node node) {
     String key = ruleId + "\n" + uri + "\n" + enclosingSignature(node) + "\n"
-        + node.toString().replaceAll("\\s+", " ").trim();
+        + WHITESPACE.matcher(node.toString()).replaceAll(" ").trim();
     int occurrence = occurrences.merge(key, 1, Integer::sum);
     return sha256(key + "\n#" + occurrence).substring(0, 16);
   }
