@@ -1,6 +1,7 @@
 package dev.plumbline.report;
 
 import dev.plumbline.finding.SourceRange;
+import dev.plumbline.fix.TextLines;
 import java.util.Optional;
 
 /** Source lines for excerpts, with tabs kept so the caret lines up in a terminal. */
@@ -8,35 +9,17 @@ final class Excerpts {
   private Excerpts() {}
 
   /**
-   * Line {@code lineNumber} (from 1) of {@code text}, as {@link String#lines()} would number it,
-   * without splitting the whole text: a report asks once per finding, and a file can have many.
+   * Line {@code lineNumber} (from 1) of a text, as {@link String#lines()} would number it. The
+   * text's line starts are found once ({@link TextLines}) and reused for each finding in it.
    */
-  static Optional<String> line(String text, int lineNumber) {
-    if (lineNumber < 1) {
+  static Optional<String> line(TextLines lines, int lineNumber) {
+    if (lineNumber < 1 || lineNumber > lines.count()) {
       return Optional.empty();
     }
-    int start = 0;
-    for (int current = 1; current < lineNumber; current++) {
-      int terminator = endOfLine(text, start);
-      if (terminator == text.length()) {
-        return Optional.empty();
-      }
-      boolean crlf = text.charAt(terminator) == '\r' && terminator + 1 < text.length()
-          && text.charAt(terminator + 1) == '\n';
-      start = terminator + (crlf ? 2 : 1);
-    }
-    if (start >= text.length()) {
+    if (lineNumber == lines.count() && lines.offset(lineNumber, 1).orElse(0) == lines.text().length()) {
       return Optional.empty(); // a final line terminator does not start another line
     }
-    return Optional.of(text.substring(start, endOfLine(text, start)));
-  }
-
-  private static int endOfLine(String text, int from) {
-    int i = from;
-    while (i < text.length() && text.charAt(i) != '\n' && text.charAt(i) != '\r') {
-      i++;
-    }
-    return i;
+    return Optional.of(lines.content(lineNumber));
   }
 
   /** A caret under the start column and tildes to the end of the range on that line. */

@@ -4,6 +4,7 @@ import dev.plumbline.finding.Finding;
 import dev.plumbline.finding.Notification;
 import dev.plumbline.finding.RelatedLocation;
 import dev.plumbline.finding.Severity;
+import dev.plumbline.fix.TextLines;
 import java.io.PrintWriter;
 import java.util.Optional;
 
@@ -26,6 +27,8 @@ public final class TextReport {
     int shown = 0;
     int suppressed = 0;
     int[] bySeverity = new int[Severity.values().length];
+    String linesOf = null; // findings come file by file: each file's lines are indexed once
+    TextLines lines = null;
     for (Finding f : ctx.result().findings()) {
       if (f.isSuppressed()) {
         suppressed++;
@@ -35,8 +38,11 @@ public final class TextReport {
       bySeverity[f.severity().ordinal()]++;
       out.println(f.location().display() + ": " + f.severity().label() + ": "
           + ctx.messages().render(f.message()) + " [" + f.ruleId() + "]");
-      String text = ctx.result().source(f.location().uri()).orElse("");
-      Optional<String> line = Excerpts.line(text, f.location().range().startLine());
+      if (!f.location().uri().equals(linesOf)) {
+        linesOf = f.location().uri();
+        lines = new TextLines(ctx.result().source(linesOf).orElse(""));
+      }
+      Optional<String> line = Excerpts.line(lines, f.location().range().startLine());
       if (line.isPresent()) {
         out.println("    " + line.get());
         out.println("    " + Excerpts.caret(line.get(), f.location().range()));

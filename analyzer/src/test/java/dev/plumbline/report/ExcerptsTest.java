@@ -2,6 +2,7 @@ package dev.plumbline.report;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
+import dev.plumbline.fix.TextLines;
 import java.util.List;
 import java.util.Optional;
 import org.junit.jupiter.api.Test;
@@ -17,7 +18,7 @@ class ExcerptsTest {
       for (int n = -1; n <= expected.size() + 2; n++) {
         Optional<String> want = n >= 1 && n <= expected.size() ? Optional.of(expected.get(n - 1))
             : Optional.empty();
-        assertEquals(want, Excerpts.line(text, n), "line " + n + " of " + text.replace("\r", "\\r")
+        assertEquals(want, Excerpts.line(new TextLines(text), n), "line " + n + " of " + text.replace("\r", "\\r")
             .replace("\n", "\\n"));
       }
     }
