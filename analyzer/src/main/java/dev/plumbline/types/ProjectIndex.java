@@ -229,6 +229,19 @@ public final class ProjectIndex {
     return roles.computeIfAbsent(typeName, this::computeRoles).contains(role);
   }
 
+  /** Whether a project or library type has any of the roles, through any supertype. */
+  public boolean hasAnyRole(String typeName, Set<TypeRole> wanted) {
+    if (typeName == null) {
+      return false;
+    }
+    for (TypeRole role : roles.computeIfAbsent(typeName, this::computeRoles)) {
+      if (wanted.contains(role)) {
+        return true;
+      }
+    }
+    return false;
+  }
+
   private Set<TypeRole> computeRoles(String typeName) {
     Set<TypeRole> out = java.util.EnumSet.noneOf(TypeRole.class);
     for (String t : selfAndSupertypes(typeName)) {

@@ -165,12 +165,7 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
       return false;
     }
     String t = type.endsWith("[]") ? type.substring(0, type.length() - 2) : type;
-    for (TypeRole r : DATA_ROLES) {
-      if (types.project().hasRole(t, r)) {
-        return true;
-      }
-    }
-    return false;
+    return types.project().hasAnyRole(t, DATA_ROLES);
   }
 
   boolean isCollectionType(String type) {

@@ -178,15 +178,7 @@ public final class RowCountAnalysis implements FlowAnalysis<SizeState> {
   }
 
   static boolean isData(ProjectIndex project, String type) {
-    if (type == null) {
-      return false;
-    }
-    for (TypeRole r : DATA_ROLES) {
-      if (project.hasRole(type, r)) {
-        return true;
-      }
-    }
-    return false;
+    return project.hasAnyRole(type, DATA_ROLES);
   }
 
   // ------------------------------------------------------------------ FlowAnalysis
