@@ -92,18 +92,7 @@ public final class Subtrees {
 
   /** As {@link Node#findAll(Class)}. */
   public static <T extends Node> List<T> findAll(Node root, Class<T> type) {
-    IndexedRange r = layout(root);
-    if (r == null) {
-      return root.findAll(type);
-    }
-    List<T> out = new ArrayList<>();
-    Node[] nodes = r.preorder;
-    for (int i = r.index; i < r.subtreeEnd; i++) {
-      if (type.isInstance(nodes[i])) {
-        out.add(type.cast(nodes[i]));
-      }
-    }
-    return out;
+    return findAll(root, type, n -> true);
   }
 
   /** As {@link Node#findAll(Class, Predicate)}. */
