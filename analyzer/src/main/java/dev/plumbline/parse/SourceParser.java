@@ -2,7 +2,6 @@ package dev.plumbline.parse;
 
 import com.github.javaparser.JavaParser;
 import com.github.javaparser.ParseResult;
-import com.github.javaparser.ParserConfiguration;
 import com.github.javaparser.Problem;
 import com.github.javaparser.Range;
 import com.github.javaparser.TokenRange;
@@ -34,12 +33,14 @@ public final class SourceParser {
   /** The outcome for one file: a tree (maybe with warnings) or only notifications. */
   public record Outcome(Optional<ParsedSource> parsed, List<Notification> notifications) {}
 
-  /** A new parser per call: JavaParser instances are not thread-safe. */
-  private static JavaParser newParser() {
-    ParserConfiguration config = new ParserConfiguration()
-        .setLanguageLevel(ParserConfiguration.LanguageLevel.JAVA_21)
-        .setCharacterEncoding(java.nio.charset.StandardCharsets.UTF_8);
-    return new JavaParser(config);
+  /**
+   * Parses as JavaParser does at the Java 21 language level, with the same tree and problems, but
+   * with that level's validation run by {@link Java21Rules}. A new parser per call: JavaParser
+   * instances are not thread-safe.
+   */
+  static ParseResult<CompilationUnit> parseJava21(String text) {
+    return new JavaParser(Java21Rules.configuration()
+        .setCharacterEncoding(java.nio.charset.StandardCharsets.UTF_8)).parse(text);
   }
 
   public Outcome parse(SourceFile file) {
@@ -102,7 +103,7 @@ public final class SourceParser {
     List<Notification> out = new ArrayList<>(notes);
     ParseResult<CompilationUnit> result;
     try {
-      result = newParser().parse(text);
+      result = parseJava21(text);
     } catch (StackOverflowError | RuntimeException e) {
       out.add(fileNote(file, Severity.ERROR, "notification.parse-crash", true, file.uri(),
           e.getClass().getSimpleName()));
