@@ -25,6 +25,12 @@ import java.util.List;
  *       (6.3 s) there; with adaptive sizing switched off the heap never grew and the scan only
  *       collected. The young generation is fixed because the default lets it grow with the heap,
  *       and every page of it is touched.
+ *   <li>the same, with objects that survive one young collection moved to the old generation at
+ *       once ({@code -XX:MaxTenuringThreshold=0}) instead of being copied between the survivor
+ *       spaces first: most survivors are parsed trees, which live to the end anyway. Cold runs
+ *       of the 200,000-line project after the parse got cheaper (commit 1d35246), two each:
+ *       553 and 653 ms of pauses in 43 collections against 860 and 879 ms in 62; 7.1 to 8.8 s
+ *       wall against 9.5 to 9.9 s; 573 MiB resident against 509 MiB.
  * </ul>
  *
  * <p>Only the quick (C1) compiler: a scan is one run of seconds to minutes, and on few cores the
@@ -34,7 +40,8 @@ import java.util.List;
  * (serial collector, earlier code).
  */
 final class Launcher {
-  static final List<String> JVM_OPTIONS = List.of("-XX:+UseParallelGC", "-Xmn128m", "-XX:InitialRAMPercentage=3",
+  static final List<String> JVM_OPTIONS = List.of("-XX:+UseParallelGC", "-Xmn128m",
+      "-XX:MaxTenuringThreshold=0", "-XX:InitialRAMPercentage=3",
       "-XX:TenuredGenerationSizeIncrement=100", "-XX:TieredStopAtLevel=1");
 
   private Launcher() {}
