@@ -118,6 +118,10 @@ public final class BenchmarkMain {
         .warmupIterations(in.warmups())
         .measurementIterations(in.measurements())
         .forks(1)
+        // Every iteration starts from a collected heap, as a command-line scan starts from an
+        // empty one; otherwise each scan pays for the previous one's trees, left as garbage in
+        // the old generation (a full collection every few iterations). Both operations alike.
+        .shouldDoGC(true)
         .jvmArgs(Launcher.JVM_OPTIONS.toArray(String[]::new))
         .addProfiler(PeakRssProfiler.class)
         .shouldFailOnError(true)
