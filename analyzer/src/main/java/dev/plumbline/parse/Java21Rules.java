@@ -115,8 +115,7 @@ final class Java21Rules {
   static boolean hasProblem(Node unit) {
     boolean[] found = {false};
     ProblemReporter flag = new ProblemReporter((Problem p) -> found[0] = true);
-    SubtreeVisitor[] visitors = SUBTREE_VISITORS.toArray(new SubtreeVisitor[0]);
-    boolean[] inVisited = new boolean[visitors.length];
+    boolean[] inVisited = new boolean[SUBTREE_VISITORS.size()];
     try {
       for (Validator whole : WHOLE_TREE_CHECKS) {
         whole.accept(unit, flag);
@@ -139,7 +138,7 @@ final class Java21Rules {
         }
         for (int k : dispatch.visitors()) {
           if (!inVisited[k]) {
-            visitors[k].visitor().accept(node, flag);
+            SUBTREE_VISITORS.get(k).visitor().accept(node, flag);
             inVisited[k] = true;
             stack.push(new EndOfVisit(k)); // popped once the node's subtree is done
           }
@@ -173,8 +172,9 @@ final class Java21Rules {
       List<Integer> visitors = new ArrayList<>();
       for (int k = 0; k < SUBTREE_VISITORS.size(); k++) {
         for (Class<?> entry : SUBTREE_VISITORS.get(k).entryTypes()) {
-          if (entry.isAssignableFrom(nodeClass) && !visitors.contains(k)) {
+          if (entry.isAssignableFrom(nodeClass)) {
             visitors.add(k);
+            break;
           }
         }
       }
