@@ -9,6 +9,8 @@ import com.github.javaparser.ParseResult;
 import com.github.javaparser.ParserConfiguration;
 import com.github.javaparser.Problem;
 import com.github.javaparser.ast.CompilationUnit;
+import com.github.javaparser.ast.Node;
+import com.github.javaparser.ast.comments.Comment;
 import com.github.javaparser.ast.validator.postprocessors.Java21PostProcessor;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -99,7 +101,19 @@ class Java21RulesTest {
     if (expected.getResult().isPresent()) {
       assertEquals(expected.getResult().get(), actual.getResult().get(), label);
       assertEquals(expected.getResult().get().toString(), actual.getResult().get().toString(), label);
+      assertEquals(ranges(expected.getResult().get()), ranges(actual.getResult().get()), label);
     }
+  }
+
+  /** Every node's and comment's range, in pre-order: the tree's equality does not compare them. */
+  private static List<String> ranges(CompilationUnit unit) {
+    List<String> out = new ArrayList<>();
+    unit.walk(Node.TreeTraversal.PREORDER,
+        n -> out.add(n.getClass().getSimpleName() + " " + n.getRange().map(Object::toString).orElse("-")));
+    for (Comment c : unit.getAllComments()) {
+      out.add("comment " + c.getRange().map(Object::toString).orElse("-"));
+    }
+    return out;
   }
 
   @Test
