@@ -61,8 +61,13 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
   final Mode mode;
   final ProvenanceSummaries summaries;
   private final Map<Node, Lineage> lineages = new IdentityHashMap<>();
-  /** Field declarators whose project-wide summary this analysis looked up. */
-  private final Set<Node> fieldSummariesRead = DataValue.identitySet(List.of());
+  /** The project-wide summaries this analysis looked up. */
+  final SummaryReads summariesRead = new SummaryReads();
+  /**
+   * Whether a callable parameter was read as the caller's rows ({@link Mode#SUMMARY} only): the
+   * one place where the modes differ, so a solution that never did this is the report's too.
+   */
+  boolean readCallerRows;
 
   ProvenanceAnalysis(FileContext file, ControlFlowGraph graph, Mode mode) {
     this.file = file;
@@ -74,20 +79,35 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
     this.summaries = s == null ? new ProvenanceSummaries() : s;
   }
 
+  /**
+   * Each graph's facts in source order. A method the summarizer solved into the same facts as a
+   * report would ({@link ProvenanceSummaries#reportOf}) is not solved again.
+   */
   static ProvenanceFacts analyzeFile(FileContext file) {
     ProvenanceFacts facts = new ProvenanceFacts();
+    ProvenanceSummaries summaries = file.projectFacts() == null ? null
+        : file.projectFacts().get(ProvenanceSummaries.class);
     for (ControlFlowGraph g : file.graphs()) {
-      analyzeGraph(file, g, Mode.REPORT, facts);
+      ProvenanceFacts solved = summaries == null ? null : summaries.reportOf(g);
+      if (solved != null) {
+        facts.addAll(solved);
+      } else {
+        analyzeGraph(file, g, Mode.REPORT, facts);
+      }
     }
     return facts;
   }
 
-  /** Solves one graph and records its facts into {@code facts}; nothing if it did not converge. */
-  static boolean analyzeGraph(FileContext file, ControlFlowGraph g, Mode mode, ProvenanceFacts facts) {
+  /**
+   * Solves one graph and records its facts into {@code facts}; returns the solved analysis, or
+   * null (and records nothing) if the solution did not converge.
+   */
+  static ProvenanceAnalysis analyzeGraph(FileContext file, ControlFlowGraph g, Mode mode,
+      ProvenanceFacts facts) {
     ProvenanceAnalysis analysis = new ProvenanceAnalysis(file, g, mode);
     FlowResult<ProvenanceState> result = ForwardSolver.solve(g, analysis);
     if (!result.converged()) {
-      return false;
+      return null;
     }
     for (CfgNode node : g.nodes()) {
       ProvenanceState before = result.before(node);
@@ -95,14 +115,18 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
         new ProvenanceEvaluator(analysis, facts).node(node, before);
       }
     }
-    facts.readFieldSummaries(analysis.fieldSummariesRead);
-    return true;
+    facts.readFieldSummaries(analysis.summariesRead.fieldsRead());
+    return analysis;
   }
 
   /** A field's project-wide summary, noting that this analysis depends on it. */
   ProvenanceSummaries.FieldSummary fieldSummary(Node declarator) {
-    fieldSummariesRead.add(declarator);
-    return summaries.field(declarator);
+    return summariesRead.field(declarator, summaries.field(declarator));
+  }
+
+  /** A project method's summary, noting that this analysis depends on it. */
+  ProvenanceSummaries.MethodSummary methodSummary(Node declaration) {
+    return summariesRead.method(declaration, summaries.method(declaration));
   }
 
   /** The value of a field's initializer, evaluated on its own (for field summaries). */

@@ -291,6 +291,7 @@ final class ProvenanceEvaluator {
     if (ProvenanceAnalysis.isCallableParameter(v)) {
       Lineage lineage = a.lineageAt(v.declaration(), v.name());
       if (a.mode == ProvenanceAnalysis.Mode.SUMMARY && (a.isDataType(type) || a.isCollectionType(type))) {
+        a.readCallerRows = true;
         return DataValue.data(EnumSet.of(Role.ARGUMENT), Set.of(lineage));
       }
       if (a.isDataType(type)) {
@@ -681,7 +682,7 @@ final class ProvenanceEvaluator {
    */
   private DataValue applySummary(MethodCallExpr call, ProjectIndex.ProjectMethod method,
       List<DataValue> args) {
-    ProvenanceSummaries.MethodSummary s = a.summaries.method(method.declaration());
+    ProvenanceSummaries.MethodSummary s = a.methodSummary(method.declaration());
     if (s == null) {
       return unknownResult(call, null);
     }

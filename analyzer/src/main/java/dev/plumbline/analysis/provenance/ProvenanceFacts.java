@@ -194,6 +194,21 @@ public final class ProvenanceFacts {
     return Collections.unmodifiableSet(fieldSummariesRead);
   }
 
+  /** Appends every fact of {@code other} after this one's, as analyzing its graphs next would. */
+  void addAll(ProvenanceFacts other) {
+    partBindings.addAll(other.partBindings);
+    fits.addAll(other.fits);
+    uses.addAll(other.uses);
+    splits.addAll(other.splits);
+    statisticUses.addAll(other.statisticUses);
+    trains.addAll(other.trains);
+    evaluations.addAll(other.evaluations);
+    shuffles.addAll(other.shuffles);
+    fieldWrites.addAll(other.fieldWrites);
+    fieldSummariesRead.addAll(other.fieldSummariesRead);
+    returns.addAll(other.returns);
+  }
+
   public List<Returned> returns() {
     return Collections.unmodifiableList(returns);
   }

@@ -1,6 +1,7 @@
 package dev.plumbline.analysis.provenance;
 
 import com.github.javaparser.ast.Node;
+import dev.plumbline.flow.ControlFlowGraph;
 import java.util.Collections;
 import java.util.IdentityHashMap;
 import java.util.List;
@@ -81,6 +82,8 @@ public final class ProvenanceSummaries {
 
   private final Map<Node, Slot> methods = new IdentityHashMap<>();
   private final Map<Node, FieldSummary> fields = new IdentityHashMap<>();
+  /** Graphs whose report-mode facts are known already; see {@link #reportOf}. */
+  private Map<ControlFlowGraph, ProvenanceFacts> reports = Map.of();
 
   public MethodSummary method(Node declaration) {
     Slot slot = methods.get(declaration);
@@ -110,6 +113,20 @@ public final class ProvenanceSummaries {
     MethodSummary old = slot.summary;
     slot.summary = summary;
     return !summary.equals(old);
+  }
+
+  /**
+   * The facts a report-mode analysis of {@code graph} would give, when the summarizer's last
+   * solution of it was that analysis in all but name: it read no parameter as its caller's rows
+   * and every summary it read is final ({@link SummaryReads}). Null when not known.
+   */
+  ProvenanceFacts reportOf(ControlFlowGraph graph) {
+    return reports.get(graph);
+  }
+
+  /** Keeps the summarizer's report-equal facts; call once summaries are final, on one thread. */
+  void keepReports(Map<ControlFlowGraph, ProvenanceFacts> solved) {
+    reports = solved;
   }
 
   boolean putField(Node declarator, FieldSummary summary) {

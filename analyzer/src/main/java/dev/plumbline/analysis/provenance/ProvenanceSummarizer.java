@@ -63,6 +63,12 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
      * not converge), and then any field it names counts.
      */
     private Set<Node> fieldSummariesRead;
+    /**
+     * The facts of its last solution when that was a report's in all but name (no parameter read
+     * as the caller's rows), with the summaries it read; null otherwise.
+     */
+    private ProvenanceFacts reportFacts;
+    private SummaryReads reportReads;
 
     Method(FileContext file, CallableDeclaration<?> declaration, ControlFlowGraph graph, int order) {
       this.file = file;
@@ -117,6 +123,25 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
         break;
       }
     }
+    summaries.keepReports(reportsStillValid(methods, summaries));
+  }
+
+  /**
+   * The methods whose last solution a report would repeat exactly: every summary it read is the
+   * final one (a recursive component left unsettled, or fields still changing after the last
+   * pass, fail this), so the per-file analysis need not solve them again.
+   */
+  private static Map<ControlFlowGraph, ProvenanceFacts> reportsStillValid(List<Method> methods,
+      ProvenanceSummaries summaries) {
+    Map<ControlFlowGraph, ProvenanceFacts> valid = new IdentityHashMap<>();
+    for (Method m : methods) {
+      if (m.reportFacts != null && m.reportReads.stillHold(summaries)) {
+        valid.put(m.graph(), m.reportFacts);
+      }
+      m.reportFacts = null;
+      m.reportReads = null;
+    }
+    return valid;
   }
 
   /** Summarizes components in order; returns the methods whose summary changed. */
@@ -238,9 +263,13 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
   /** Summarizes one method; returns whether its summary changed. */
   private static boolean summarize(Method m, ProvenanceSummaries summaries) {
     ProvenanceFacts facts = new ProvenanceFacts();
-    boolean converged =
+    ProvenanceAnalysis solved =
         ProvenanceAnalysis.analyzeGraph(m.file(), m.graph(), ProvenanceAnalysis.Mode.SUMMARY, facts);
+    boolean converged = solved != null;
     m.fieldSummariesRead = converged ? facts.fieldSummariesRead() : null;
+    boolean reportAlike = converged && !solved.readCallerRows;
+    m.reportFacts = reportAlike ? facts : null;
+    m.reportReads = reportAlike ? solved.summariesRead : null;
     if (!converged) {
       // No fixed point: callers treat its result as unknown rows and know none of its uses.
       return summaries.put(m.declaration(), new ProvenanceSummaries.MethodSummary(null, List.of(), true));
