@@ -3,10 +3,8 @@ package dev.plumbline.parse;
 import com.github.javaparser.JavaParser;
 import com.github.javaparser.ParseResult;
 import com.github.javaparser.Problem;
-import com.github.javaparser.Range;
 import com.github.javaparser.TokenRange;
 import com.github.javaparser.ast.CompilationUnit;
-import com.github.javaparser.ast.comments.Comment;
 import dev.plumbline.discover.SourceFile;
 import dev.plumbline.finding.Location;
 import dev.plumbline.finding.Message;
@@ -139,13 +137,6 @@ public final class SourceParser {
   private static void dropTokens(CompilationUnit unit) {
     Subtrees.index(unit);
     Subtrees.walk(unit, TreeCompactor::compact);
-    for (Comment comment : unit.getAllComments()) {
-      if (!(comment.getRange().orElse(null) instanceof Subtrees.IndexedRange)) {
-        Optional<Range> range = comment.getRange();
-        comment.setTokenRange(null);
-        range.ifPresent(comment::setRange);
-      }
-    }
   }
 
   private static String firstLine(String s) {

@@ -3,8 +3,9 @@ package dev.plumbline.parse;
 import com.github.javaparser.Range;
 import com.github.javaparser.ast.CompilationUnit;
 import com.github.javaparser.ast.Node;
-import java.util.ArrayDeque;
+import com.github.javaparser.ast.comments.Comment;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Optional;
 import java.util.function.Consumer;
@@ -47,37 +48,67 @@ public final class Subtrees {
 
   /**
    * Lays out {@code unit}'s nodes in pre-order and gives each node with a range an
-   * {@link IndexedRange}; each node's token range is dropped on the way (see
-   * {@link SourceParser}). Iterative, so deeply nested code cannot overflow the stack.
+   * {@link IndexedRange}; each node's token range, and that of its comment, is dropped on the way
+   * (see {@link SourceParser}). Iterative, so deeply nested code cannot overflow the stack.
    */
   static void index(CompilationUnit unit) {
-    List<Node> order = new ArrayList<>();
-    List<Integer> ends = new ArrayList<>();
-    ArrayDeque<Object> stack = new ArrayDeque<>();
-    stack.push(unit);
-    while (!stack.isEmpty()) {
-      Object top = stack.pop();
-      if (top instanceof Integer exitOf) {
-        ends.set(exitOf, order.size());
-        continue;
+    Node[] order = new Node[256];
+    int[] ends = new int[256];
+    int size = 0;
+    // The path from the root to the node being entered: each open node's place in the layout,
+    // its children, and the next of them to enter. Primitive arrays, as this runs on every node
+    // of every file while parsing.
+    int[] place = new int[32];
+    Object[] children = new Object[32];
+    int[] nextChild = new int[32];
+    int depth = 0;
+    Node entering = unit;
+    while (true) {
+      if (entering != null) {
+        if (size == order.length) {
+          order = Arrays.copyOf(order, size * 2);
+          ends = Arrays.copyOf(ends, size * 2);
+        }
+        if (depth == place.length) {
+          place = Arrays.copyOf(place, depth * 2);
+          children = Arrays.copyOf(children, depth * 2);
+          nextChild = Arrays.copyOf(nextChild, depth * 2);
+        }
+        order[size] = entering;
+        place[depth] = size;
+        children[depth] = entering.getChildNodes();
+        nextChild[depth] = 0;
+        size++;
+        depth++;
+        entering = null;
       }
-      Node node = (Node) top;
-      int at = order.size();
-      order.add(node);
-      ends.add(at + 1);
-      stack.push(at);
-      List<Node> children = node.getChildNodes();
-      for (int i = children.size() - 1; i >= 0; i--) {
-        stack.push(children.get(i));
+      int top = depth - 1;
+      List<?> kids = (List<?>) children[top];
+      if (nextChild[top] < kids.size()) {
+        entering = (Node) kids.get(nextChild[top]++);
+      } else {
+        ends[place[top]] = size;
+        children[top] = null;
+        depth--;
+        if (depth == 0) {
+          break;
+        }
       }
     }
-    Node[] preorder = order.toArray(new Node[0]);
+    Node[] preorder = Arrays.copyOf(order, size);
     for (int i = 0; i < preorder.length; i++) {
       Node node = preorder[i];
       Optional<Range> range = node.getRange();
       node.setTokenRange(null); // also clears the range
       if (range.isPresent()) {
-        node.setRange(new IndexedRange(range.get(), preorder, i, ends.get(i)));
+        node.setRange(new IndexedRange(range.get(), preorder, i, ends[i]));
+      }
+      // A node's own comment is not among its children: it keeps its range, without tokens.
+      Comment comment = node.getComment().orElse(null);
+      if (comment != null && !(comment.getRange().orElse(null) instanceof IndexedRange)) {
+        Optional<Range> commentRange = comment.getRange();
+        comment.setTokenRange(null);
+        commentRange.ifPresent(comment::setRange);
       }
     }
   }

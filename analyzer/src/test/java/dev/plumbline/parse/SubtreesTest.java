@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.github.javaparser.ast.CompilationUnit;
 import com.github.javaparser.ast.Node;
+import com.github.javaparser.ast.comments.Comment;
 import com.github.javaparser.ast.body.MethodDeclaration;
 import com.github.javaparser.ast.comments.Comment;
 import com.github.javaparser.ast.expr.Expression;
@@ -125,6 +126,10 @@ class SubtreesTest {
     List<Node> walked = new ArrayList<>();
     Subtrees.walk(unit, walked::add);
     assertSameNodes(all, walked);
+    for (Comment comment : unit.getAllComments()) {
+      assertTrue(comment.getTokenRange().isEmpty(), "a comment's tokens are dropped");
+      assertTrue(comment.getRange().isPresent(), "a comment keeps its range");
+    }
     for (Node root : all) {
       if (root.getRange().isPresent()) {
         assertTrue(root.getRange().get() instanceof Subtrees.IndexedRange,

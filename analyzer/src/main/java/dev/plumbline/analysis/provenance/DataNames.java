@@ -10,8 +10,10 @@ import dev.plumbline.engine.AnalysisSettings;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
 
 /**
  * The weak, named-heuristic source of roles: what the words in a path, a file name or a
@@ -50,17 +52,12 @@ final class DataNames {
 
   /** The held-out role the words of these names say, if they say exactly one. */
   static Optional<Role> heldOutRole(List<String> names) {
-    boolean test = false;
-    boolean validation = false;
-    boolean train = false;
+    int says = 0;
     for (String name : names) {
-      for (String w : words(name)) {
-        test |= TEST_WORDS.contains(w);
-        validation |= VALIDATION_WORDS.contains(w);
-        train |= TRAIN_WORDS.contains(w);
-      }
+      says |= wordsSay(name);
     }
-    if (train || test == validation) {
+    boolean test = (says & TEST) != 0;
+    if ((says & TRAIN) != 0 || test == ((says & VALIDATION) != 0)) {
       return Optional.empty();
     }
     return Optional.of(test ? Role.TEST : Role.VALIDATION);
@@ -68,13 +65,40 @@ final class DataNames {
 
   static boolean saysTimeOrdered(List<String> names) {
     for (String name : names) {
-      for (String w : words(name)) {
-        if (TIME_WORDS.contains(w)) {
-          return true;
-        }
+      if ((wordsSay(name) & TIME) != 0) {
+        return true;
       }
     }
     return false;
+  }
+
+  private static final int TEST = 1;
+  private static final int VALIDATION = 2;
+  private static final int TRAIN = 4;
+  private static final int TIME = 8;
+  /**
+   * What each name's words say, as the bits above. The analyses ask about the same names on
+   * every pass over a method, and splitting a name into words each time was a visible part of
+   * their cost. A pure function of the name, so shared by every scan in the JVM; bounded, so
+   * that scanning many projects in one JVM cannot grow it without end.
+   */
+  private static final Map<String, Integer> SAID = new ConcurrentHashMap<>();
+  private static final int SAID_LIMIT = 100_000;
+
+  private static int wordsSay(String name) {
+    Integer known = SAID.get(name);
+    if (known != null) {
+      return known;
+    }
+    int says = 0;
+    for (String w : words(name)) {
+      says |= (TEST_WORDS.contains(w) ? TEST : 0) | (VALIDATION_WORDS.contains(w) ? VALIDATION : 0)
+          | (TRAIN_WORDS.contains(w) ? TRAIN : 0) | (TIME_WORDS.contains(w) ? TIME : 0);
+    }
+    if (SAID.size() < SAID_LIMIT) {
+      SAID.put(name, says);
+    }
+    return says;
   }
 
   /**
