@@ -82,6 +82,8 @@ public final class SuppressionSites {
   /** @param text the offending id or directive, for the message */
   public record Problem(ProblemKind kind, Node node, String text) {}
 
+  private static final SuppressionSites NONE = new SuppressionSites(List.of(), List.of());
+
   private final List<Site> sites;
   private final List<Problem> problems;
 
@@ -109,6 +111,11 @@ public final class SuppressionSites {
   }
 
   public static SuppressionSites of(CompilationUnit unit, String text) {
+    // Both kinds of site are spelled out in the text, unicode escapes aside, which the parser
+    // does not decode: a file without either word (nearly every file) has none, nor problems.
+    if (!text.contains("SuppressWarnings") && !text.contains(TOKEN_PREFIX)) {
+      return NONE;
+    }
     TextLines lines = new TextLines(text);
     List<Site> sites = new ArrayList<>();
     List<Problem> problems = new ArrayList<>();

@@ -4,6 +4,12 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.github.javaparser.StaticJavaParser;
+import com.github.javaparser.ast.expr.AnnotationExpr;
+import dev.plumbline.discover.SourceFile;
+import dev.plumbline.parse.LineMap;
+import dev.plumbline.parse.ParsedSource;
+import dev.plumbline.parse.SourceParser;
+import java.nio.file.Path;
 import java.util.List;
 import java.util.Optional;
 import org.junit.jupiter.api.Test;
@@ -35,6 +41,19 @@ class SuppressionSitesTest {
     assertTrue(s.match("leak.x", 6).isPresent());
     assertTrue(s.match("leak.x", 8).isEmpty(), "the next method is not covered");
     assertTrue(s.match("leak.y", 6).isEmpty(), "another rule is not covered");
+  }
+
+  @Test
+  void aNameSpelledWithUnicodeEscapesIsNoSuppression() {
+    // A file without the words "SuppressWarnings" and "plumbline:" is answered without looking
+    // at its tree; that is exact only because the parser leaves unicode escapes undecoded.
+    String code = "class A {\n  @\\u0053uppressWarnings(\"\\u0070lumbline:leak.x\") void m() {}\n}\n";
+    SourceFile file = new SourceFile(Path.of("A.java"), "A.java");
+    Optional<ParsedSource> parsed =
+        new SourceParser().parseText(file, code, LineMap.IDENTITY, List.of()).parsed();
+    parsed.ifPresent(p -> assertTrue(p.unit().findAll(AnnotationExpr.class).stream()
+        .noneMatch(a -> a.getNameAsString().contains("SuppressWarnings")), code));
+    assertTrue(parsed.isEmpty() || SuppressionSites.of(parsed.get().unit(), code).sites().isEmpty());
   }
 
   @Test
