@@ -13,6 +13,7 @@ import com.github.javaparser.ast.validator.Validator;
 import com.github.javaparser.ast.validator.Validators;
 import com.github.javaparser.ast.validator.VisitorValidator;
 import com.github.javaparser.ast.validator.language_level_validations.Java21Validator;
+import com.github.javaparser.ast.validator.postprocessors.Java10PostProcessor;
 import com.github.javaparser.ast.validator.postprocessors.Java21PostProcessor;
 import com.github.javaparser.ast.validator.postprocessors.PostProcessors;
 import java.lang.reflect.Field;
@@ -50,6 +51,13 @@ final class Java21Rules {
   /** JavaParser's own validator, for the exact problems of a rejected tree. */
   private static final Validator STANDARD = new Java21Validator();
   private static final PostProcessors POST_PROCESSOR = new Java21PostProcessor();
+  /**
+   * Whether the post-processing only turns class types named {@code var} into var types (its one
+   * processor comes from {@link Java10PostProcessor}; later levels add none), so that a source
+   * without such a name can skip it.
+   */
+  private static final boolean POST_PROCESSING_IS_VAR_ONLY =
+      POST_PROCESSOR instanceof Java10PostProcessor && POST_PROCESSOR.getPostProcessors().size() == 1;
 
   /** A check applied to every node of the type (Node for a tree-visitor check). */
   private record NodeCheck(Class<? extends Node> type, Validator check) {}
@@ -84,6 +92,16 @@ final class Java21Rules {
    * problem, as it does for its own.
    */
   static ParserConfiguration configuration() {
+    return configuration(true);
+  }
+
+  /**
+   * As {@link #configuration()}, for a source of which {@code mayNameVar} says whether it may
+   * have an identifier {@code var} ({@link #mayNameVar(String)}). If not, the post-processing,
+   * which searches the whole tree for types named {@code var}, has nothing to do and is skipped.
+   */
+  static ParserConfiguration configuration(boolean mayNameVar) {
+    boolean postProcess = mayNameVar || !POST_PROCESSING_IS_VAR_ONLY;
     ParserConfiguration configuration = new ParserConfiguration()
         .setLanguageLevel(ParserConfiguration.LanguageLevel.JAVA_21);
     configuration.getProcessors().add(0, () -> new Processor() {
@@ -96,7 +114,9 @@ final class Java21Rules {
       @Override
       public void postProcess(ParseResult<? extends Node> result, ParserConfiguration config) {
         config.setLanguageLevel(ParserConfiguration.LanguageLevel.JAVA_21);
-        POST_PROCESSOR.postProcess(result, config);
+        if (postProcess) {
+          POST_PROCESSOR.postProcess(result, config);
+        }
         Node root = result.getResult().get(); // absent only where JavaParser's level fails too
         if (!result.getProblems().isEmpty() || hasProblem(root)) {
           STANDARD.accept(root, new ProblemReporter(result.getProblems()::add));
@@ -104,6 +124,39 @@ final class Java21Rules {
       }
     });
     return configuration;
+  }
+
+  /**
+   * False only if {@code text} cannot hold the identifier {@code var}: every occurrence of the
+   * letters is inside a longer name, which the lexer reads as one token. That is so when a
+   * letter, digit, {@code _} or {@code $} follows, or when the run of such characters just before
+   * starts with a letter, {@code _} or {@code $} (a run starting with a digit may be a number
+   * followed by a name, as in {@code 1Lvar}). JavaParser leaves unicode escapes in names
+   * undecoded, so a {@code var} spelled with one is no {@code var}. Linear: the runs walked back
+   * over end at distinct non-word characters, so they do not overlap.
+   */
+  static boolean mayNameVar(String text) {
+    for (int i = text.indexOf("var"); i >= 0; i = text.indexOf("var", i + 1)) {
+      if (i + 3 < text.length() && isWordPart(text.charAt(i + 3))) {
+        continue;
+      }
+      int runStart = i;
+      while (runStart > 0 && isWordPart(text.charAt(runStart - 1))) {
+        runStart--;
+      }
+      if (runStart == i || isDigit(text.charAt(runStart))) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  private static boolean isDigit(char c) {
+    return c >= '0' && c <= '9';
+  }
+
+  private static boolean isWordPart(char c) {
+    return c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' || isDigit(c) || c == '_' || c == '$';
   }
 
   /** Number of checks run in the fused walk (a test watches that fusing still happens). */

@@ -37,7 +37,7 @@ public final class SourceParser {
    * instances are not thread-safe.
    */
   static ParseResult<CompilationUnit> parseJava21(String text) {
-    return new JavaParser(Java21Rules.configuration()
+    return new JavaParser(Java21Rules.configuration(Java21Rules.mayNameVar(text))
         .setCharacterEncoding(java.nio.charset.StandardCharsets.UTF_8)).parse(text);
   }
 

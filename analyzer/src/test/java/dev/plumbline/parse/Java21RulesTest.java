@@ -123,6 +123,32 @@ class Java21RulesTest {
   }
 
   @Test
+  void theVarPostProcessingIsSkippedOnlyWhereNoNameIsVar() {
+    // Skipped where mayNameVar is false; either way the outcome must be JavaParser's.
+    List<String> snippets = List.of(
+        "class A { void f() { var x = 1; } }",
+        "class A { void f() { var\tx = 1; for (var y : new int[0]) {} } }",
+        "class A { void f() { java.util.List<var> l; } }",
+        "class A { int variance; int avar; int var1; int $var; int _var; void f() { variance = avar; } }",
+        "class A { void f() { long x = 1Lvar; } }",
+        "class A { void f() { double d = 1e5var; } }",
+        "class A { void f() { \\u0076ar x = 1; } }",
+        "class var {}",
+        "class A { Object o = a.var; }",
+        "class A { String s = \"var\"; /* var */ }");
+    for (String text : snippets) {
+      assertSameOutcome(text, text);
+    }
+    assertTrue(Java21Rules.mayNameVar("var x"));
+    assertTrue(Java21Rules.mayNameVar("a.var;"));
+    assertTrue(Java21Rules.mayNameVar("1Lvar"), "a number, then the name var");
+    assertTrue(Java21Rules.mayNameVar("x = var"));
+    assertFalse(Java21Rules.mayNameVar("int variance, avar, var1, $var, _var, x1var;"));
+    assertFalse(Java21Rules.mayNameVar("\\u0076ar x"));
+    assertFalse(Java21Rules.mayNameVar("varvarvarvar"));
+  }
+
+  @Test
   void everyRejectedSnippetGetsJavaParsersProblems() {
     for (String text : REJECTED) {
       assertFalse(standard(text).getProblems().isEmpty(), "JavaParser accepts: " + text);
