@@ -27,6 +27,7 @@ import com.github.javaparser.ast.stmt.YieldStmt;
 import dev.plumbline.flow.CfgNode;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
+import dev.plumbline.parse.NumberLiterals;
 import dev.plumbline.types.ProjectIndex;
 import dev.plumbline.types.Variable;
 import java.util.ArrayList;
@@ -352,7 +353,7 @@ final class ProvenanceEvaluator {
       return new DataValue(DataValue.Kind.DATA, any, Set.of(), array.lineages(),
           Set.of(), 0, Set.of(origin), array.timeOrdered());
     }
-    int i = index.asIntegerLiteralExpr().asNumber().intValue();
+    int i = NumberLiterals.value(index.asIntegerLiteralExpr()).intValue();
     Role role = heldOutOfTraining(array, i >= 0 && i < byIndex.size() ? byIndex.get(i) : Role.HELD_OUT);
     return new DataValue(DataValue.Kind.DATA, EnumSet.of(role), Set.of(), array.lineages(), Set.of(),
         0, Set.of(origin), array.timeOrdered());
@@ -440,9 +441,9 @@ final class ProvenanceEvaluator {
     for (int i = from; i < call.getArguments().size(); i++) {
       Expression arg = call.getArgument(i);
       if (arg.isIntegerLiteralExpr()) {
-        out.add(arg.asIntegerLiteralExpr().asNumber().doubleValue());
+        out.add(NumberLiterals.value(arg.asIntegerLiteralExpr()).doubleValue());
       } else if (arg.isDoubleLiteralExpr()) {
-        out.add(arg.asDoubleLiteralExpr().asDouble());
+        out.add(NumberLiterals.value(arg.asDoubleLiteralExpr()));
       } else {
         return null;
       }

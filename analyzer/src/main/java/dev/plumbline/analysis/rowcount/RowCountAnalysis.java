@@ -41,6 +41,7 @@ import dev.plumbline.flow.ForwardSolver;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
 import dev.plumbline.model.TypeRole;
+import dev.plumbline.parse.NumberLiterals;
 import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.ProjectIndex;
@@ -589,20 +590,20 @@ public final class RowCountAnalysis implements FlowAnalysis<SizeState> {
       }
       if (e instanceof IntegerLiteralExpr i) {
         try {
-          return Optional.of(i.asNumber().longValue());
+          return Optional.of(NumberLiterals.value(i).longValue());
         } catch (NumberFormatException bad) {
           return Optional.empty();
         }
       }
       if (e instanceof LongLiteralExpr l) {
         try {
-          return Optional.of(l.asNumber().longValue());
+          return Optional.of(NumberLiterals.value(l).longValue());
         } catch (NumberFormatException bad) {
           return Optional.empty();
         }
       }
       if (e instanceof DoubleLiteralExpr d) {
-        return Optional.of(d.asDouble());
+        return Optional.of(NumberLiterals.value(d));
       }
       if (e instanceof UnaryExpr u && u.getOperator() == UnaryExpr.Operator.MINUS) {
         return constant(u.getExpression(), depth + 1)

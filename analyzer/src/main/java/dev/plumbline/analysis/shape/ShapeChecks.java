@@ -14,6 +14,7 @@ import com.github.javaparser.ast.stmt.AssertStmt;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.Effect;
 import dev.plumbline.model.TypeRole;
+import dev.plumbline.parse.NumberLiterals;
 import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.Variable;
@@ -52,7 +53,7 @@ final class ShapeChecks {
     if (x instanceof ArrayAccessExpr aa && ShapeEvaluator.unwrap(aa.getName()) instanceof MethodCallExpr call
         && "shape".equals(queryOf(call, types)) && aa.getIndex().isIntegerLiteralExpr() && call.getScope().isPresent()) {
       return Optional.of(new Query(call.getScope().get(), Query.Kind.SIZE,
-          aa.getIndex().asIntegerLiteralExpr().asNumber().intValue()));
+          NumberLiterals.value(aa.getIndex().asIntegerLiteralExpr()).intValue()));
     }
     if (x instanceof FieldAccessExpr fa && fa.getNameAsString().equals("length")
         && ShapeEvaluator.unwrap(fa.getScope()) instanceof MethodCallExpr call && "shape".equals(queryOf(call, types))
@@ -93,7 +94,7 @@ final class ShapeChecks {
 
   private static Optional<Integer> literalArg(MethodCallExpr call) {
     if (call.getArguments().size() == 1 && call.getArgument(0).isIntegerLiteralExpr()) {
-      return Optional.of(call.getArgument(0).asIntegerLiteralExpr().asNumber().intValue());
+      return Optional.of(NumberLiterals.value(call.getArgument(0).asIntegerLiteralExpr()).intValue());
     }
     return Optional.empty();
   }

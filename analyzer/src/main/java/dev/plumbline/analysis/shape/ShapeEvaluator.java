@@ -34,6 +34,7 @@ import com.github.javaparser.ast.stmt.YieldStmt;
 import dev.plumbline.flow.CfgNode;
 import dev.plumbline.model.ApiMethod;
 import dev.plumbline.model.TypeRole;
+import dev.plumbline.parse.NumberLiterals;
 import dev.plumbline.parse.Subtrees;
 import dev.plumbline.types.ExpressionTypes;
 import dev.plumbline.types.ProjectIndex;
@@ -169,10 +170,10 @@ final class ShapeEvaluator {
       return to == null || INTEGRAL.contains(to) || inner instanceof ShapeValue.Tensor ? inner : null;
     }
     if (e.isIntegerLiteralExpr()) {
-      return new ShapeValue.Int(Dim.of(e.asIntegerLiteralExpr().asNumber().longValue()));
+      return new ShapeValue.Int(Dim.of(NumberLiterals.value(e.asIntegerLiteralExpr()).longValue()));
     }
     if (e.isLongLiteralExpr()) {
-      return new ShapeValue.Int(Dim.of(e.asLongLiteralExpr().asNumber().longValue()));
+      return new ShapeValue.Int(Dim.of(NumberLiterals.value(e.asLongLiteralExpr()).longValue()));
     }
     if (e instanceof UnaryExpr u) {
       return unary(u);
