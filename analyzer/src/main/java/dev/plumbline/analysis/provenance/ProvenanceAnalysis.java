@@ -81,14 +81,14 @@ public final class ProvenanceAnalysis implements FlowAnalysis<ProvenanceState> {
 
   /**
    * Each graph's facts in source order. A method the summarizer solved into the same facts as a
-   * report would ({@link ProvenanceSummaries#reportOf}) is not solved again.
+   * report would ({@link ProvenanceSummaries#takeReportOf}) is not solved again.
    */
   static ProvenanceFacts analyzeFile(FileContext file) {
     ProvenanceFacts facts = new ProvenanceFacts();
     ProvenanceSummaries summaries = file.projectFacts() == null ? null
         : file.projectFacts().get(ProvenanceSummaries.class);
     for (ControlFlowGraph g : file.graphs()) {
-      ProvenanceFacts solved = summaries == null ? null : summaries.reportOf(g);
+      ProvenanceFacts solved = summaries == null ? null : summaries.takeReportOf(g);
       if (solved != null) {
         facts.addAll(solved);
       } else {

@@ -48,7 +48,7 @@ public final class ProvenanceFacts {
   public record PartBinding(ControlFlowGraph graph, VariableDeclarator declarator,
       Variable variable, DataValue value) {}
 
-  private final List<PartBinding> partBindings = new ArrayList<>();
+  private final List<PartBinding> partBindings;
 
   void add(PartBinding b) {
     partBindings.add(b);
@@ -102,16 +102,52 @@ public final class ProvenanceFacts {
   /** A value returned by the callable of {@code graph}; null when not tracked. */
   public record Returned(ControlFlowGraph graph, Node at, DataValue value) {}
 
-  private final List<Fit> fits = new ArrayList<>();
-  private final List<Use> uses = new ArrayList<>();
-  private final List<Split> splits = new ArrayList<>();
-  private final List<StatisticUse> statisticUses = new ArrayList<>();
-  private final List<Train> trains = new ArrayList<>();
-  private final List<Evaluation> evaluations = new ArrayList<>();
-  private final List<Shuffle> shuffles = new ArrayList<>();
-  private final List<FieldWrite> fieldWrites = new ArrayList<>();
-  private final Set<Node> fieldSummariesRead = DataValue.identitySet(List.of());
-  private final List<Returned> returns = new ArrayList<>();
+  private final List<Fit> fits;
+  private final List<Use> uses;
+  private final List<Split> splits;
+  private final List<StatisticUse> statisticUses;
+  private final List<Train> trains;
+  private final List<Evaluation> evaluations;
+  private final List<Shuffle> shuffles;
+  private final List<FieldWrite> fieldWrites;
+  private final Set<Node> fieldSummariesRead;
+  private final List<Returned> returns;
+
+  public ProvenanceFacts() {
+    partBindings = new ArrayList<>();
+    fits = new ArrayList<>();
+    uses = new ArrayList<>();
+    splits = new ArrayList<>();
+    statisticUses = new ArrayList<>();
+    trains = new ArrayList<>();
+    evaluations = new ArrayList<>();
+    shuffles = new ArrayList<>();
+    fieldWrites = new ArrayList<>();
+    fieldSummariesRead = DataValue.identitySet(List.of());
+    returns = new ArrayList<>();
+  }
+
+  /** An unmodifiable copy, as small as its facts allow (most lists of a method are empty). */
+  private ProvenanceFacts(ProvenanceFacts from) {
+    partBindings = List.copyOf(from.partBindings);
+    fits = List.copyOf(from.fits);
+    uses = List.copyOf(from.uses);
+    splits = List.copyOf(from.splits);
+    statisticUses = List.copyOf(from.statisticUses);
+    trains = List.copyOf(from.trains);
+    evaluations = List.copyOf(from.evaluations);
+    shuffles = List.copyOf(from.shuffles);
+    fieldWrites = List.copyOf(from.fieldWrites);
+    // Identity, not Set.copyOf: nodes compare structurally.
+    fieldSummariesRead = from.fieldSummariesRead.isEmpty() ? Set.of()
+        : Collections.unmodifiableSet(DataValue.identitySet(from.fieldSummariesRead));
+    returns = List.copyOf(from.returns);
+  }
+
+  /** These facts, kept for a while: an unmodifiable, compact copy. */
+  ProvenanceFacts frozen() {
+    return new ProvenanceFacts(this);
+  }
 
   void add(Fit f) {
     fits.add(f);

@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.SortedSet;
+import java.util.concurrent.ConcurrentHashMap;
 
 /**
  * Summaries of the project's own methods and fields, computed once per scan by
@@ -15,7 +16,8 @@ import java.util.SortedSet;
  * through a helper or kept in a field is still tracked.
  *
  * <p>Keys are declaration nodes (a method or constructor, a field's declarator), compared by
- * identity. Filled while the summarizer runs; read-only once the scan starts checking files.
+ * identity. Filled while the summarizer runs; read-only once the scan starts checking files,
+ * except for the report-equal facts, which files take ({@link #takeReportOf}).
  */
 public final class ProvenanceSummaries {
 
@@ -82,8 +84,11 @@ public final class ProvenanceSummaries {
 
   private final Map<Node, Slot> methods = new IdentityHashMap<>();
   private final Map<Node, FieldSummary> fields = new IdentityHashMap<>();
-  /** Graphs whose report-mode facts are known already; see {@link #reportOf}. */
-  private Map<ControlFlowGraph, ProvenanceFacts> reports = Map.of();
+  /**
+   * Graphs whose report-mode facts are known already; see {@link #takeReportOf}. The one part
+   * that changes once files are checked: each entry is taken by its file's analysis.
+   */
+  private volatile Map<ControlFlowGraph, ProvenanceFacts> reports = Map.of();
 
   public MethodSummary method(Node declaration) {
     Slot slot = methods.get(declaration);
@@ -118,15 +123,22 @@ public final class ProvenanceSummaries {
   /**
    * The facts a report-mode analysis of {@code graph} would give, when the summarizer's last
    * solution of it was that analysis in all but name: it read no parameter as its caller's rows
-   * and every summary it read is final ({@link SummaryReads}). Null when not known.
+   * and every summary it read is final ({@link SummaryReads}). Null when not known, or already
+   * taken: each is handed out once, so that it does not stay in memory until the scan ends (a
+   * file's analysis is computed once per check; a second would only solve again).
    */
-  ProvenanceFacts reportOf(ControlFlowGraph graph) {
+  ProvenanceFacts takeReportOf(ControlFlowGraph graph) {
+    return reports.isEmpty() ? null : reports.remove(graph);
+  }
+
+  /** The facts {@link #takeReportOf} would hand out, without taking them (tests look). */
+  ProvenanceFacts peekReportOf(ControlFlowGraph graph) {
     return reports.get(graph);
   }
 
   /** Keeps the summarizer's report-equal facts; call once summaries are final, on one thread. */
   void keepReports(Map<ControlFlowGraph, ProvenanceFacts> solved) {
-    reports = solved;
+    reports = new ConcurrentHashMap<>(solved);
   }
 
   boolean putField(Node declarator, FieldSummary summary) {

@@ -68,7 +68,7 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
      * as the caller's rows), with the summaries it read; null otherwise.
      */
     private ProvenanceFacts reportFacts;
-    private SummaryReads reportReads;
+    private SummaryReads.Snapshot reportReads;
 
     Method(FileContext file, CallableDeclaration<?> declaration, ControlFlowGraph graph, int order) {
       this.file = file;
@@ -266,10 +266,13 @@ public final class ProvenanceSummarizer implements ProjectAnalysis {
     ProvenanceAnalysis solved =
         ProvenanceAnalysis.analyzeGraph(m.file(), m.graph(), ProvenanceAnalysis.Mode.SUMMARY, facts);
     boolean converged = solved != null;
-    m.fieldSummariesRead = converged ? facts.fieldSummariesRead() : null;
-    boolean reportAlike = converged && !solved.readCallerRows;
-    m.reportFacts = reportAlike ? facts : null;
-    m.reportReads = reportAlike ? solved.summariesRead : null;
+    // Kept until the end of the summaries, for every method: an empty set takes no table.
+    m.fieldSummariesRead = !converged ? null
+        : facts.fieldSummariesRead().isEmpty() ? Set.of() : facts.fieldSummariesRead();
+    SummaryReads.Snapshot reads =
+        converged && !solved.readCallerRows ? solved.summariesRead.snapshot() : null;
+    m.reportFacts = reads != null ? facts.frozen() : null;
+    m.reportReads = reads;
     if (!converged) {
       // No fixed point: callers treat its result as unknown rows and know none of its uses.
       return summaries.put(m.declaration(), new ProvenanceSummaries.MethodSummary(null, List.of(), true));

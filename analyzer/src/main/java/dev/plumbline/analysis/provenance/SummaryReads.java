@@ -52,23 +52,48 @@ final class SummaryReads {
 
   /** Whether every summary read is still what {@code now} holds. */
   boolean stillHold(ProvenanceSummaries now) {
+    Snapshot kept = snapshot();
+    return kept != null && kept.stillHold(now);
+  }
+
+  /** The reads, compactly, to check later; null if a summary changed while it was read. */
+  Snapshot snapshot() {
     if (changedWhileRead) {
-      return false;
+      return null;
     }
+    int m = methods == null ? 0 : methods.size();
+    int f = fields == null ? 0 : fields.size();
+    Node[] keys = new Node[m + f];
+    Object[] read = new Object[m + f];
+    int i = 0;
     if (methods != null) {
       for (Map.Entry<Node, ProvenanceSummaries.MethodSummary> e : methods.entrySet()) {
-        if (!Objects.equals(now.method(e.getKey()), e.getValue())) {
-          return false;
-        }
+        keys[i] = e.getKey();
+        read[i++] = e.getValue();
       }
     }
     if (fields != null) {
       for (Map.Entry<Node, ProvenanceSummaries.FieldSummary> e : fields.entrySet()) {
-        if (!Objects.equals(now.field(e.getKey()), e.getValue())) {
+        keys[i] = e.getKey();
+        read[i++] = e.getValue();
+      }
+    }
+    return new Snapshot(keys, read, m);
+  }
+
+  /**
+   * Reads kept compactly: the first {@code methodCount} keys are method declarations, the rest
+   * field declarators, each with the summary read.
+   */
+  record Snapshot(Node[] keys, Object[] read, int methodCount) {
+    boolean stillHold(ProvenanceSummaries now) {
+      for (int i = 0; i < keys.length; i++) {
+        Object current = i < methodCount ? now.method(keys[i]) : now.field(keys[i]);
+        if (!Objects.equals(current, read[i])) {
           return false;
         }
       }
+      return true;
     }
-    return true;
   }
 }
