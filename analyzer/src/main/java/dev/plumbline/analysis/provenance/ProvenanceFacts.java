@@ -144,9 +144,16 @@ public final class ProvenanceFacts {
     returns = List.copyOf(from.returns);
   }
 
+  /** No facts at all, unmodifiable: what most methods' frozen facts are. */
+  private static final ProvenanceFacts NONE = new ProvenanceFacts(new ProvenanceFacts());
+
   /** These facts, kept for a while: an unmodifiable, compact copy. */
   ProvenanceFacts frozen() {
-    return new ProvenanceFacts(this);
+    boolean none = partBindings.isEmpty() && fits.isEmpty() && uses.isEmpty() && splits.isEmpty()
+        && statisticUses.isEmpty() && trains.isEmpty() && evaluations.isEmpty()
+        && shuffles.isEmpty() && fieldWrites.isEmpty() && fieldSummariesRead.isEmpty()
+        && returns.isEmpty();
+    return none ? NONE : new ProvenanceFacts(this);
   }
 
   void add(Fit f) {

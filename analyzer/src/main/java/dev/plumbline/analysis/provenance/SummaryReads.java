@@ -56,6 +56,8 @@ final class SummaryReads {
     return kept != null && kept.stillHold(now);
   }
 
+  private static final Snapshot NOTHING_READ = new Snapshot(new Node[0], new Object[0], 0);
+
   /** The reads, compactly, to check later; null if a summary changed while it was read. */
   Snapshot snapshot() {
     if (changedWhileRead) {
@@ -63,6 +65,9 @@ final class SummaryReads {
     }
     int m = methods == null ? 0 : methods.size();
     int f = fields == null ? 0 : fields.size();
+    if (m + f == 0) {
+      return NOTHING_READ;
+    }
     Node[] keys = new Node[m + f];
     Object[] read = new Object[m + f];
     int i = 0;
