@@ -6,10 +6,14 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Collection;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
+import java.util.stream.Collectors;
 import java.util.stream.Stream;
+import org.openjdk.jmh.results.BenchmarkResult;
+import org.openjdk.jmh.results.IterationResult;
 import org.openjdk.jmh.results.RunResult;
 import org.openjdk.jmh.runner.Runner;
 import org.openjdk.jmh.runner.RunnerException;
@@ -21,8 +25,8 @@ import java.util.concurrent.TimeUnit;
 
 /**
  * Runs the benchmark: generates the inputs, times a bare parse against a full scan of each with
- * JMH (one fresh JVM per operation and input, warm-up iterations first, median of the measured
- * ones), and prints the three ratios with their targets.
+ * JMH (rounds in which every operation on every input runs in a fresh JVM, warm-up iterations
+ * first; the median of all measured ones), and prints the three ratios with their targets.
  *
  * <pre>
  *   bench/run                  # the README command; builds, then runs this class
@@ -35,12 +39,22 @@ public final class BenchmarkMain {
   static final double MAX_PEAK_RSS_MIB = 1024;
   static final double MAX_4X_TO_1X = 4.4;
 
-  /** One input and how many iterations it gets: small inputs need more to be stable. */
+  /**
+   * Rounds of measurement by default: every operation on every input runs once a round, in a fresh
+   * JVM. With the iterations below the 1x input gets 8 measured iterations of each operation, the
+   * 4x input 4.
+   */
+  static final int DEFAULT_ROUNDS = 4;
+
+  /**
+   * One input and how many iterations each of its JVMs runs (warm-up, then measured); small inputs
+   * need more to be stable.
+   */
   record Input(String name, Path dir, int files, long lines, int warmups, int measurements) {}
 
-  /** The measurements of one input. */
+  /** The measurements of one input; {@code roundRatios} is scan/parse from each round's medians. */
   record Measured(Input input, double parseMs, double scanMs, double parseRssMib, double scanRssMib,
-      ColdScan.Result cold) {
+      ColdScan.Result cold, List<Double> roundRatios) {
     double ratio() {
       return scanMs / parseMs;
     }
@@ -58,15 +72,17 @@ public final class BenchmarkMain {
     int jobs = Runtime.getRuntime().availableProcessors();
     long seed = 8;
     boolean verbose = false;
+    int rounds = DEFAULT_ROUNDS;
     for (int i = 0; i < args.length; i++) {
       switch (args[i]) {
         case "--root" -> root = Path.of(args[++i]).toAbsolutePath();
         case "--lines" -> lines = Long.parseLong(args[++i]);
         case "--jobs" -> jobs = Integer.parseInt(args[++i]);
         case "--seed" -> seed = Long.parseLong(args[++i]);
+        case "--rounds" -> rounds = Integer.parseInt(args[++i]);
         case "--verbose" -> verbose = true;
         default -> {
-          System.err.println("usage: bench/run [--lines N] [--jobs N] [--seed S] [--verbose] [--root DIR]");
+          System.err.println("usage: bench/run [--lines N] [--jobs N] [--rounds N] [--seed S] [--verbose] [--root DIR]");
           System.exit(2);
         }
       }
@@ -83,23 +99,19 @@ public final class BenchmarkMain {
     for (int i = 0; i < corpus.size(); i++) {
       copyTree(corpus.get(i), corpusCopy.resolve("root" + i));
     }
-    inputs.add(describe("test corpus", corpusCopy, 5, 10));
+    inputs.add(describe("test corpus", corpusCopy, 5, 5));
     CorpusProjectGenerator generator = new CorpusProjectGenerator(corpus, seed);
     Path one = fresh(work.resolve("generated-1x"));
     generator.generate(one, lines);
-    // The 1x ratio is the headline: parse and scan run in separate JVMs minutes apart, and single
-    // timings on a shared virtual machine move by 10 to 30%, so it gets more measurements.
-    inputs.add(describe("generated 1x", one, 3, 7));
+    // Two warm-ups: in a fresh JVM the first 1x iteration of either operation took 15 to 30%
+    // longer than the later ones (measured 2026-12-04: scan 8.6 s, then 6.0 to 7.4 s).
+    inputs.add(describe("generated 1x", one, 2, 2));
     Path four = fresh(work.resolve("generated-4x"));
     generator.generate(four, 4 * lines);
-    inputs.add(describe("generated 4x", four, 1, 3));
+    inputs.add(describe("generated 4x", four, 1, 1));
 
-    List<Measured> results = new ArrayList<>();
-    for (Input in : inputs) {
-      System.out.printf(Locale.ROOT, "measuring %s (%d files, %d lines)...%n", in.name(), in.files(), in.lines());
-      results.add(measure(in, jobs, verbose));
-    }
-    String report = report(results, jobs);
+    List<Measured> results = measure(inputs, rounds, jobs, verbose);
+    String report = report(results, rounds, jobs);
     System.out.print(report);
     try {
       Files.writeString(work.resolve("results.txt"), report, StandardCharsets.UTF_8);
@@ -108,9 +120,47 @@ public final class BenchmarkMain {
     }
   }
 
-  private static Measured measure(Input in, int jobs, boolean verbose) throws RunnerException {
+  /**
+   * Measures every operation on every input in rounds. A round runs each (input,
+   * operation) pair once, in a fresh JVM, and the order rotates from round to round. Single
+   * timings on a shared virtual machine move by 10 to 30% over minutes; measuring parse and scan,
+   * or the 1x and the 4x scan, minutes apart let a slow spell fall on one side of a ratio only.
+   * Interleaved, a slow spell falls on every side alike, and each median draws from every round.
+   */
+  private static List<Measured> measure(List<Input> inputs, int rounds, int jobs, boolean verbose) throws RunnerException {
+    List<Leg> legs = new ArrayList<>();
+    for (Input in : inputs) {
+      legs.add(new Leg(in, "parse"));
+      legs.add(new Leg(in, "scan"));
+    }
+    for (int round = 0; round < rounds; round++) {
+      for (Leg leg : RoundOrder.of(legs, round)) {
+        System.out.printf(Locale.ROOT, "round %d of %d: %s of %s%n", round + 1, rounds, leg.operation(),
+            leg.input().name());
+        leg.add(round, runFork(leg, jobs, verbose));
+      }
+    }
+    List<Measured> results = new ArrayList<>();
+    for (int i = 0; i < inputs.size(); i++) {
+      Leg parse = legs.get(2 * i);
+      Leg scan = legs.get(2 * i + 1);
+      List<Double> roundRatios = new ArrayList<>();
+      for (int round = 0; round < rounds; round++) {
+        roundRatios.add(median(scan.timesOfRound(round)) / median(parse.timesOfRound(round)));
+      }
+      Input in = inputs.get(i);
+      System.out.printf(Locale.ROOT, "cold scan of %s%n", in.name());
+      results.add(new Measured(in, median(parse.allTimes()), median(scan.allTimes()), parse.peakRssMib(),
+          scan.peakRssMib(), ColdScan.run(in.dir(), jobs), roundRatios));
+    }
+    return results;
+  }
+
+  /** One JMH fork of one operation on one input: its measured iterations and peak RSS. */
+  private static RunResult runFork(Leg leg, int jobs, boolean verbose) throws RunnerException {
+    Input in = leg.input();
     ChainedOptionsBuilder options = new OptionsBuilder()
-        .include(ScanBenchmark.class.getName() + "\\.(parse|scan)$")
+        .include(ScanBenchmark.class.getName() + "\\." + leg.operation() + "$")
         .param("input", in.dir().toString())
         .param("jobs", String.valueOf(jobs))
         .mode(Mode.SingleShotTime)
@@ -126,25 +176,75 @@ public final class BenchmarkMain {
         .addProfiler(PeakRssProfiler.class)
         .shouldFailOnError(true)
         .verbosity(verbose ? VerboseMode.NORMAL : VerboseMode.SILENT);
-    double parseMs = 0;
-    double scanMs = 0;
-    double parseRss = 0;
-    double scanRss = 0;
-    for (RunResult r : new Runner(options.build()).run()) {
-      double median = r.getPrimaryResult().getStatistics().getPercentile(50);
-      double rss = r.getSecondaryResults().get(PeakRssProfiler.LABEL).getScore();
-      if (r.getParams().getBenchmark().endsWith(".parse")) {
-        parseMs = median;
-        parseRss = rss;
-      } else {
-        scanMs = median;
-        scanRss = rss;
-      }
+    Collection<RunResult> results = new Runner(options.build()).run();
+    if (results.size() != 1) {
+      throw new IllegalStateException("expected one result for " + leg + ", got " + results.size());
     }
-    return new Measured(in, parseMs, scanMs, parseRss, scanRss, ColdScan.run(in.dir(), jobs));
+    return results.iterator().next();
   }
 
-  static String report(List<Measured> results, int jobs) {
+  /** An operation on an input, with what its forks measured, round by round. */
+  static final class Leg {
+    private final Input input;
+    private final String operation;
+    private final List<List<Double>> timesByRound = new ArrayList<>();
+    private double peakRssMib;
+
+    Leg(Input input, String operation) {
+      this.input = input;
+      this.operation = operation;
+    }
+
+    Input input() {
+      return input;
+    }
+
+    String operation() {
+      return operation;
+    }
+
+    void add(int round, RunResult fork) {
+      List<Double> times = new ArrayList<>();
+      for (BenchmarkResult b : fork.getBenchmarkResults()) {
+        for (IterationResult iteration : b.getIterationResults()) {
+          times.add(iteration.getPrimaryResult().getScore());
+        }
+      }
+      while (timesByRound.size() <= round) {
+        timesByRound.add(new ArrayList<>());
+      }
+      timesByRound.get(round).addAll(times);
+      peakRssMib = Math.max(peakRssMib, fork.getSecondaryResults().get(PeakRssProfiler.LABEL).getScore());
+    }
+
+    List<Double> timesOfRound(int round) {
+      return timesByRound.get(round);
+    }
+
+    List<Double> allTimes() {
+      return timesByRound.stream().flatMap(List::stream).toList();
+    }
+
+    double peakRssMib() {
+      return peakRssMib;
+    }
+
+    @Override
+    public String toString() {
+      return operation + " of " + input.name();
+    }
+  }
+
+  static double median(List<Double> values) {
+    if (values.isEmpty()) {
+      throw new IllegalArgumentException("no values");
+    }
+    double[] sorted = values.stream().mapToDouble(Double::doubleValue).sorted().toArray();
+    int mid = sorted.length / 2;
+    return sorted.length % 2 == 1 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
+  }
+
+  static String report(List<Measured> results, int rounds, int jobs) {
     StringBuilder out = new StringBuilder();
     out.append(String.format(Locale.ROOT, "%n%-13s %6s %8s %9s %9s %7s %10s %10s %11s %8s %10s%n", "input", "files",
         "lines", "parse ms", "scan ms", "ratio", "parse RSS", "scan RSS", "lines/s", "cold ms", "cold RSS"));
@@ -157,15 +257,17 @@ public final class BenchmarkMain {
     Measured one = results.get(1);
     Measured four = results.get(2);
     double scaling = four.scanMs() / one.scanMs();
-    out.append(String.format(Locale.ROOT, "%nTimes are medians of single-shot runs with %d worker threads;"
-        + " RSS is the peak of the measuring JVM (VmHWM),%nwarm-ups included; cold: one scan in a fresh"
-        + " JVM with the launcher's options, as a user runs it.%n", jobs));
+    out.append(String.format(Locale.ROOT, "%nTimes are medians of single-shot runs with %d worker threads,"
+        + " from %d interleaved rounds; RSS is the peak of the%nmeasuring JVMs (VmHWM), warm-ups included;"
+        + " cold: one scan in a fresh JVM with the launcher's options, as a user runs it.%n", jobs, rounds));
     out.append(check("scan/parse time at 1x", one.ratio(), MAX_SCAN_TO_PARSE, "%.2f"));
     out.append(check("peak RSS of a cold scan at 1x (MiB)", one.cold().peakRssMib(), MAX_PEAK_RSS_MIB, "%.0f"));
     out.append(check("scan time 4x/1x", scaling, MAX_4X_TO_1X, "%.2f"));
     out.append(String.format(Locale.ROOT, "  (for reference: scan/parse at 4x %.2f, parse time 4x/1x %.2f,"
         + " corpus scan/parse %.2f, peak RSS of the benchmark's 1x scan JVM %.0f MiB)%n", four.ratio(),
         four.parseMs() / one.parseMs(), results.get(0).ratio(), one.scanRssMib()));
+    out.append(String.format(Locale.ROOT, "  (scan/parse at 1x round by round: %s)%n", one.roundRatios().stream()
+        .map(r -> String.format(Locale.ROOT, "%.2f", r)).collect(Collectors.joining(", "))));
     return out.toString();
   }
 
