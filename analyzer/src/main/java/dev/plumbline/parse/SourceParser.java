@@ -28,6 +28,9 @@ public final class SourceParser {
   /** Larger files are skipped: no hand-written training code comes near this. */
   public static final long MAX_FILE_BYTES = 16L * 1024 * 1024;
 
+  /** Names and literal texts shared by the trees this parser makes (see {@link TreeCompactor}). */
+  private final SharedStrings strings = new SharedStrings();
+
   /** The outcome for one file: a tree (maybe with warnings) or only notifications. */
   public record Outcome(Optional<ParsedSource> parsed, List<Notification> notifications) {}
 
@@ -132,11 +135,11 @@ public final class SourceParser {
    * reads tokens, and they are most of a tree's memory, which matters because all trees of a
    * project stay in memory until the scan ends (the project index refers to declarations). The
    * ranges kept are {@link Subtrees.IndexedRange}s, for fast subtree queries. For the same reason
-   * the tree's empty lists are shared ({@link TreeCompactor}).
+   * the tree's empty lists and equal names are shared ({@link TreeCompactor}).
    */
-  private static void dropTokens(CompilationUnit unit) {
+  private void dropTokens(CompilationUnit unit) {
     Subtrees.index(unit);
-    Subtrees.walk(unit, TreeCompactor::compact);
+    Subtrees.walk(unit, node -> TreeCompactor.compact(node, strings));
   }
 
   private static String firstLine(String s) {

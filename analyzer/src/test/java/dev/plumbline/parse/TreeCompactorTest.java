@@ -1,6 +1,8 @@
 package dev.plumbline.parse;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNotSame;
+import static org.junit.jupiter.api.Assertions.assertSame;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -9,7 +11,10 @@ import com.github.javaparser.ParserConfiguration;
 import com.github.javaparser.ast.CompilationUnit;
 import com.github.javaparser.ast.body.MethodDeclaration;
 import com.github.javaparser.ast.comments.LineComment;
+import com.github.javaparser.ast.expr.IntegerLiteralExpr;
+import com.github.javaparser.ast.expr.Name;
 import com.github.javaparser.ast.expr.SimpleName;
+import com.github.javaparser.ast.expr.StringLiteralExpr;
 import com.github.javaparser.ast.observer.AstObserverAdapter;
 import dev.plumbline.discover.SourceFile;
 import java.io.IOException;
@@ -60,5 +65,52 @@ class TreeCompactorTest {
     assertThrows(UnsupportedOperationException.class, () -> method.getParameters().register(new AstObserverAdapter() {}));
     // The other nodes' lists are their own: nothing leaked into the shared one.
     assertTrue(TreeCompactor.FROZEN_EMPTY.isEmpty());
+  }
+
+  @Test
+  void equalNamesAndLiteralsOfAllTreesOfAParserShareOneString() {
+    SourceParser parser = new SourceParser();
+    CompilationUnit a = parser.parseText(new SourceFile(Path.of("A.java"), "A.java"),
+        "package p.q; class A { int count = 10; void f() { count = count + 10; String s = \"ten\"; } }",
+        LineMap.IDENTITY, List.of()).parsed().orElseThrow().unit();
+    CompilationUnit b = parser.parseText(new SourceFile(Path.of("B.java"), "B.java"),
+        "package p.q; class B { long count = 10; String t = \"ten\"; }",
+        LineMap.IDENTITY, List.of()).parsed().orElseThrow().unit();
+    List<SimpleName> counts = Stream.of(a, b).flatMap(u -> u.findAll(SimpleName.class).stream())
+        .filter(n -> n.getIdentifier().equals("count")).toList();
+    assertEquals(4, counts.size());
+    List<IntegerLiteralExpr> tens = Stream.of(a, b).flatMap(u -> u.findAll(IntegerLiteralExpr.class).stream()).toList();
+    assertEquals(3, tens.size());
+    List<StringLiteralExpr> words = Stream.of(a, b).flatMap(u -> u.findAll(StringLiteralExpr.class).stream()).toList();
+    assertEquals(2, words.size());
+    List<Name> packages = Stream.of(a, b).map(u -> u.getPackageDeclaration().orElseThrow().getName()).toList();
+    for (SimpleName n : counts) {
+      assertSame(counts.get(0).getIdentifier(), n.getIdentifier());
+    }
+    for (IntegerLiteralExpr n : tens) {
+      assertSame(tens.get(0).getValue(), n.getValue());
+    }
+    assertSame(words.get(0).getValue(), words.get(1).getValue());
+    assertSame(packages.get(0).getIdentifier(), packages.get(1).getIdentifier());
+    assertSame(packages.get(0).getQualifier().orElseThrow().getIdentifier(),
+        packages.get(1).getQualifier().orElseThrow().getIdentifier());
+  }
+
+  @Test
+  void sharedStringsLeaveLongTextsAndOverflowAlone() {
+    SharedStrings strings = new SharedStrings();
+    String longText = "x".repeat(SharedStrings.MAX_LENGTH + 1);
+    assertSame(longText, strings.shared(longText));
+    assertNotSame(longText, strings.shared(new String(longText)));
+    String first = new String("name");
+    assertSame(first, strings.shared(first));
+    assertSame(first, strings.shared(new String("name")));
+    for (int i = 0; i < SharedStrings.LIMIT; i++) {
+      strings.shared("n" + i);
+    }
+    String late = "late" + System.nanoTime();
+    assertSame(late, strings.shared(late));
+    assertNotSame(late, strings.shared(new String(late)), "a full table adds no more texts");
+    assertSame(first, strings.shared(new String("name")), "texts already in it stay shared");
   }
 }
