@@ -1,6 +1,5 @@
 package dev.plumbline.parse;
 
-import com.github.javaparser.JavaParser;
 import com.github.javaparser.ParseResult;
 import com.github.javaparser.Problem;
 import com.github.javaparser.TokenRange;
@@ -36,12 +35,11 @@ public final class SourceParser {
 
   /**
    * Parses as JavaParser does at the Java 21 language level, with the same tree and problems, but
-   * with that level's validation run by {@link Java21Rules}. A new parser per call: JavaParser
-   * instances are not thread-safe.
+   * with that level's validation run by {@link Java21Rules}, on this thread's own parser
+   * ({@link ThreadParsers}: JavaParser instances are not thread-safe).
    */
   static ParseResult<CompilationUnit> parseJava21(String text) {
-    return new JavaParser(Java21Rules.configuration(Java21Rules.mayNameVar(text))
-        .setCharacterEncoding(java.nio.charset.StandardCharsets.UTF_8)).parse(text);
+    return ThreadParsers.parse(text, Java21Rules.mayNameVar(text));
   }
 
   public Outcome parse(SourceFile file) {

@@ -1,0 +1,192 @@
+package dev.plumbline.parse;
+
+import com.github.javaparser.JavaParser;
+import com.github.javaparser.ParseResult;
+import com.github.javaparser.ast.CompilationUnit;
+import java.lang.reflect.Field;
+import java.util.Arrays;
+import java.util.EmptyStackException;
+import java.util.Stack;
+
+/**
+ * The parsers of one thread: a JavaParser for each of the two configurations of
+ * {@link Java21Rules#configuration(boolean)}, kept from file to file (JavaParser resets its
+ * generated parser for each parse; that is how it reuses one itself), with one change: the
+ * token manager's work stack, a {@link Stack} whose every operation takes a lock, is replaced by
+ * {@link ThreadConfinedStack}, which takes none. The token manager pushes and pops every token
+ * through that stack, and without the optimizing compiler each lock is paid in full: the stack's
+ * operations were 9% of a scan's CPU samples. The parser stays on its thread, so no lock is
+ * needed. Trees and problems are JavaParser's own ({@code Java21RulesTest} compares them with a
+ * fresh JavaParser's, parse after parse on one thread).
+ *
+ * <p>This reaches into two private fields of JavaParser. If a JavaParser version lacks them, the
+ * stack stays as it is ({@link #active()} says so): slower, the same trees. After a parse that
+ * throws, the thread's parsers are dropped and the next parse starts from new ones.
+ */
+final class ThreadParsers {
+  private static final Field AST_PARSER = field(JavaParser.class, "astParser");
+  private static final Field TOKEN_SOURCE = field("com.github.javaparser.GeneratedJavaParser", "token_source");
+  private static final Field WORK_STACK = field("com.github.javaparser.GeneratedJavaParserTokenManager", "tokenWorkStack");
+  private static final boolean ACTIVE = AST_PARSER != null && TOKEN_SOURCE != null && WORK_STACK != null
+      && WORK_STACK.getType() == Stack.class;
+
+  private static final ThreadLocal<ThreadParsers> CURRENT = ThreadLocal.withInitial(ThreadParsers::new);
+
+  private JavaParser mayNameVar;
+  private JavaParser cannotNameVar;
+
+  private ThreadParsers() {}
+
+  static boolean active() {
+    return ACTIVE;
+  }
+
+  /** Parses {@code text} as a parser with {@code Java21Rules.configuration(mayNameVar)} does. */
+  static ParseResult<CompilationUnit> parse(String text, boolean mayNameVar) {
+    ThreadParsers parsers = CURRENT.get();
+    JavaParser parser = parsers.parserFor(mayNameVar);
+    try {
+      return parser.parse(text);
+    } catch (RuntimeException | Error e) {
+      CURRENT.remove();
+      throw e;
+    }
+  }
+
+  private JavaParser parserFor(boolean var) {
+    JavaParser parser = var ? mayNameVar : cannotNameVar;
+    if (parser == null) {
+      parser = withLockFreeStack(new JavaParser(Java21Rules.configuration(var)
+          .setCharacterEncoding(java.nio.charset.StandardCharsets.UTF_8)));
+      if (var) {
+        mayNameVar = parser;
+      } else {
+        cannotNameVar = parser;
+      }
+    }
+    return parser;
+  }
+
+  /** A first, empty parse makes the generated parser and its token manager, which are kept. */
+  private static JavaParser withLockFreeStack(JavaParser parser) {
+    if (!ACTIVE) {
+      return parser;
+    }
+    parser.parse("");
+    try {
+      Object generated = AST_PARSER.get(parser);
+      Object tokens = generated == null ? null : TOKEN_SOURCE.get(generated);
+      if (tokens != null && WORK_STACK.get(tokens) instanceof Stack<?> old && old.isEmpty()) {
+        WORK_STACK.set(tokens, new ThreadConfinedStack<>());
+      }
+    } catch (IllegalAccessException e) {
+      throw new IllegalStateException("fields were made accessible", e);
+    }
+    return parser;
+  }
+
+  /** Whether {@code parser}'s token manager has the lock-free stack (for tests). */
+  static boolean hasLockFreeStack(JavaParser parser) {
+    try {
+      Object generated = AST_PARSER.get(parser);
+      return generated != null && WORK_STACK.get(TOKEN_SOURCE.get(generated)) instanceof ThreadConfinedStack<?>;
+    } catch (IllegalAccessException e) {
+      throw new IllegalStateException(e);
+    }
+  }
+
+  /** This thread's parser for the configuration (for tests). */
+  static JavaParser current(boolean mayNameVar) {
+    return CURRENT.get().parserFor(mayNameVar);
+  }
+
+  private static Field field(String owner, String name) {
+    try {
+      return field(Class.forName(owner, false, JavaParser.class.getClassLoader()), name);
+    } catch (ClassNotFoundException | LinkageError e) {
+      return null;
+    }
+  }
+
+  private static Field field(Class<?> owner, String name) {
+    try {
+      Field f = owner.getDeclaredField(name);
+      f.setAccessible(true);
+      return f;
+    } catch (NoSuchFieldException | RuntimeException e) {
+      return null;
+    }
+  }
+
+  /**
+   * A stack for one thread, without locks. It keeps its elements itself: the inherited storage
+   * stays empty, so of {@link java.util.Vector}'s other operations none may be used; the token
+   * manager uses {@code push}, {@code empty} and {@code pop} only.
+   */
+  static final class ThreadConfinedStack<E> extends Stack<E> {
+    private static final long serialVersionUID = 1L;
+
+    private Object[] items = new Object[16];
+    private int count;
+
+    @Override
+    public E push(E item) {
+      if (count == items.length) {
+        items = Arrays.copyOf(items, count * 2);
+      }
+      items[count++] = item;
+      return item;
+    }
+
+    @Override
+    @SuppressWarnings("unchecked")
+    public E pop() {
+      if (count == 0) {
+        throw new EmptyStackException();
+      }
+      E item = (E) items[--count];
+      items[count] = null;
+      return item;
+    }
+
+    @Override
+    @SuppressWarnings("unchecked")
+    public E peek() {
+      if (count == 0) {
+        throw new EmptyStackException();
+      }
+      return (E) items[count - 1];
+    }
+
+    @Override
+    public boolean empty() {
+      return count == 0;
+    }
+
+    @Override
+    public boolean isEmpty() {
+      return count == 0;
+    }
+
+    @Override
+    public int size() {
+      return count;
+    }
+
+    @Override
+    public void clear() {
+      Arrays.fill(items, 0, count, null);
+      count = 0;
+    }
+
+    @Override
+    public boolean equals(Object o) {
+      return this == o;
+    }
+
+    @Override
+    public int hashCode() {
+      return System.identityHashCode(this);
+    }
+  }
+}
