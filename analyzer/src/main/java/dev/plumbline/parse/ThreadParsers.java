@@ -3,6 +3,8 @@ package dev.plumbline.parse;
 import com.github.javaparser.JavaParser;
 import com.github.javaparser.ParseResult;
 import com.github.javaparser.ast.CompilationUnit;
+import com.github.javaparser.ast.Node;
+import com.github.javaparser.utils.LineSeparator;
 import java.lang.reflect.Field;
 import java.util.Arrays;
 import java.util.EmptyStackException;
@@ -17,7 +19,9 @@ import java.util.Stack;
  * through that stack, and without the optimizing compiler each lock is paid in full: the stack's
  * operations were 9% of a scan's CPU samples. The parser stays on its thread, so no lock is
  * needed. Trees and problems are JavaParser's own ({@code Java21RulesTest} compares them with a
- * fresh JavaParser's, parse after parse on one thread).
+ * fresh JavaParser's, parse after parse on one thread). A text without a carriage return skips
+ * JavaParser's line separator detection, whose answer is then known
+ * ({@link #lineSeparatorWithoutCarriageReturn}).
  *
  * <p>This reaches into two private fields of JavaParser. If a JavaParser version lacks them, the
  * stack stays as it is ({@link #active()} says so): slower, the same trees. After a parse that
@@ -45,12 +49,31 @@ final class ThreadParsers {
   static ParseResult<CompilationUnit> parse(String text, boolean mayNameVar) {
     ThreadParsers parsers = CURRENT.get();
     JavaParser parser = parsers.parserFor(mayNameVar);
+    boolean hasCarriageReturn = text.indexOf('\r') >= 0;
+    parser.getParserConfiguration().setDetectOriginalLineSeparator(hasCarriageReturn);
+    ParseResult<CompilationUnit> result;
     try {
-      return parser.parse(text);
+      result = parser.parse(text);
     } catch (RuntimeException | Error e) {
       CURRENT.remove();
       throw e;
     }
+    if (!hasCarriageReturn) {
+      result.getResult().ifPresent(unit -> unit.setData(Node.LINE_SEPARATOR_KEY, lineSeparatorWithoutCarriageReturn(text)));
+    }
+    return result;
+  }
+
+  /**
+   * What JavaParser's line separator detection finds in a text without {@code '\r'}, without
+   * its cost: it looks every character up in a table of separators by making a string of it (5% of
+   * a scan's CPU samples). It counts CR, LF and CR-LF; with no CR, the outcome is {@code LF} if
+   * there is a line feed and {@code NONE} if not ({@code LineSeparator.getLineEnding}). Texts with
+   * a CR keep JavaParser's detection, which also has its own way with a CR-LF split between two
+   * reads.
+   */
+  static LineSeparator lineSeparatorWithoutCarriageReturn(String text) {
+    return text.indexOf('\n') >= 0 ? LineSeparator.LF : LineSeparator.NONE;
   }
 
   private JavaParser parserFor(boolean var) {

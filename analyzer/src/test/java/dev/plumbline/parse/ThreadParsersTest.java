@@ -45,8 +45,22 @@ class ThreadParsersTest {
 
   @Test
   void parseAfterParseOnOneThreadGivesWhatFreshParsersGive() {
-    for (String text : List.of(VALID, BROKEN, VALID, REJECTED, VALID, "", VALID.replace("var y", "int y"))) {
+    for (String text : List.of(VALID, BROKEN, VALID, REJECTED, VALID, "", VALID.replace("var y", "int y"),
+        VALID.replace("\n", "\r\n"), VALID.replace("\n", "\r"), VALID.replaceFirst("\n", "\r\n"),
+        "class E {}", "class F {}\n", "class G {}\r", BROKEN + "\n}", BROKEN.replace(" ", "\n"))) {
       assertSameOutcome(text);
+    }
+  }
+
+  @Test
+  void theLineSeparatorIsJavaParsersOnCutAndMixedTexts() {
+    // Cut at every point, with and without carriage returns: the root's line separator (which
+    // CompilationUnit.toString prints with) is the one JavaParser's detection finds.
+    List<String> texts = List.of(VALID, VALID.replace("\n", "\r\n"), VALID.replace("\n", "\r"));
+    for (String full : texts) {
+      for (int cut = 0; cut <= full.length(); cut += 3) {
+        assertSameOutcome(full.substring(0, cut));
+      }
     }
   }
 
@@ -111,6 +125,9 @@ class ThreadParsersTest {
       assertEquals(expected.getResult().get().toString(), actual.getResult().get().toString(), text);
       assertEquals(ranges(expected.getResult().get()), ranges(actual.getResult().get()), text);
       assertEquals(ranges(standard.getResult().get()), ranges(actual.getResult().get()), text);
+      assertEquals(standard.getResult().get().getData(Node.LINE_SEPARATOR_KEY),
+          actual.getResult().get().getData(Node.LINE_SEPARATOR_KEY), text);
+      assertEquals(standard.getResult().get().toString(), actual.getResult().get().toString(), text);
     }
   }
 
