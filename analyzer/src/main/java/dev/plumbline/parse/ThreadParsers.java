@@ -29,8 +29,9 @@ import java.util.Stack;
  */
 final class ThreadParsers {
   private static final Field AST_PARSER = field(JavaParser.class, "astParser");
-  private static final Field TOKEN_SOURCE = field("com.github.javaparser.GeneratedJavaParser", "token_source");
-  private static final Field WORK_STACK = field("com.github.javaparser.GeneratedJavaParserTokenManager", "tokenWorkStack");
+  // The generated classes are not public; their fields are found through the fields' types.
+  private static final Field TOKEN_SOURCE = AST_PARSER == null ? null : field(AST_PARSER.getType(), "token_source");
+  private static final Field WORK_STACK = TOKEN_SOURCE == null ? null : field(TOKEN_SOURCE.getType(), "tokenWorkStack");
   private static final boolean ACTIVE = AST_PARSER != null && TOKEN_SOURCE != null && WORK_STACK != null
       && WORK_STACK.getType() == Stack.class;
 
@@ -121,14 +122,6 @@ final class ThreadParsers {
   /** This thread's parser for the configuration (for tests). */
   static JavaParser current(boolean mayNameVar) {
     return CURRENT.get().parserFor(mayNameVar);
-  }
-
-  private static Field field(String owner, String name) {
-    try {
-      return field(Class.forName(owner, false, JavaParser.class.getClassLoader()), name);
-    } catch (ClassNotFoundException | LinkageError e) {
-      return null;
-    }
   }
 
   private static Field field(Class<?> owner, String name) {
