@@ -11,6 +11,7 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.stream.Collectors;
+import java.util.stream.IntStream;
 import java.util.stream.Stream;
 import org.openjdk.jmh.results.BenchmarkResult;
 import org.openjdk.jmh.results.IterationResult;
@@ -52,9 +53,12 @@ public final class BenchmarkMain {
    */
   record Input(String name, Path dir, int files, long lines, int warmups, int measurements) {}
 
-  /** The measurements of one input; {@code roundRatios} is scan/parse from each round's medians. */
+  /**
+   * The measurements of one input; {@code roundRatios} is scan/parse from each round's medians,
+   * {@code roundScanMs} each round's median scan time.
+   */
   record Measured(Input input, double parseMs, double scanMs, double parseRssMib, double scanRssMib,
-      ColdScan.Result cold, List<Double> roundRatios) {
+      ColdScan.Result cold, List<Double> roundRatios, List<Double> roundScanMs) {
     double ratio() {
       return scanMs / parseMs;
     }
@@ -145,13 +149,15 @@ public final class BenchmarkMain {
       Leg parse = legs.get(2 * i);
       Leg scan = legs.get(2 * i + 1);
       List<Double> roundRatios = new ArrayList<>();
+      List<Double> roundScanMs = new ArrayList<>();
       for (int round = 0; round < rounds; round++) {
+        roundScanMs.add(median(scan.timesOfRound(round)));
         roundRatios.add(median(scan.timesOfRound(round)) / median(parse.timesOfRound(round)));
       }
       Input in = inputs.get(i);
       System.out.printf(Locale.ROOT, "cold scan of %s%n", in.name());
       results.add(new Measured(in, median(parse.allTimes()), median(scan.allTimes()), parse.peakRssMib(),
-          scan.peakRssMib(), ColdScan.run(in.dir(), jobs), roundRatios));
+          scan.peakRssMib(), ColdScan.run(in.dir(), jobs), roundRatios, roundScanMs));
     }
     return results;
   }
@@ -266,9 +272,14 @@ public final class BenchmarkMain {
     out.append(String.format(Locale.ROOT, "  (for reference: scan/parse at 4x %.2f, parse time 4x/1x %.2f,"
         + " corpus scan/parse %.2f, peak RSS of the benchmark's 1x scan JVM %.0f MiB)%n", four.ratio(),
         four.parseMs() / one.parseMs(), results.get(0).ratio(), one.scanRssMib()));
-    out.append(String.format(Locale.ROOT, "  (scan/parse at 1x round by round: %s)%n", one.roundRatios().stream()
-        .map(r -> String.format(Locale.ROOT, "%.2f", r)).collect(Collectors.joining(", "))));
+    out.append(String.format(Locale.ROOT, "  (round by round: scan/parse at 1x %s; scan time 4x/1x %s)%n",
+        joined(one.roundRatios()), joined(IntStream.range(0, four.roundScanMs().size())
+            .mapToObj(r -> four.roundScanMs().get(r) / one.roundScanMs().get(r)).toList())));
     return out.toString();
+  }
+
+  private static String joined(List<Double> values) {
+    return values.stream().map(v -> String.format(Locale.ROOT, "%.2f", v)).collect(Collectors.joining(", "));
   }
 
   private static String check(String what, double value, double max, String format) {
