@@ -55,10 +55,11 @@ public final class BenchmarkMain {
 
   /**
    * The measurements of one input; {@code roundRatios} is scan/parse from each round's medians,
-   * {@code roundScanMs} each round's median scan time.
+   * {@code roundScanMs} each round's median scan time; the means are of all measured iterations.
    */
   record Measured(Input input, double parseMs, double scanMs, double parseRssMib, double scanRssMib,
-      ColdScan.Result cold, List<Double> roundRatios, List<Double> roundScanMs) {
+      ColdScan.Result cold, List<Double> roundRatios, List<Double> roundScanMs, double parseMeanMs,
+      double scanMeanMs) {
     double ratio() {
       return scanMs / parseMs;
     }
@@ -157,7 +158,8 @@ public final class BenchmarkMain {
       Input in = inputs.get(i);
       System.out.printf(Locale.ROOT, "cold scan of %s%n", in.name());
       results.add(new Measured(in, median(parse.allTimes()), median(scan.allTimes()), parse.peakRssMib(),
-          scan.peakRssMib(), ColdScan.run(in.dir(), jobs), roundRatios, roundScanMs));
+          scan.peakRssMib(), ColdScan.run(in.dir(), jobs), roundRatios, roundScanMs, mean(parse.allTimes()),
+          mean(scan.allTimes())));
     }
     return results;
   }
@@ -241,6 +243,10 @@ public final class BenchmarkMain {
     }
   }
 
+  static double mean(List<Double> values) {
+    return values.stream().mapToDouble(Double::doubleValue).average().orElseThrow();
+  }
+
   static double median(List<Double> values) {
     if (values.isEmpty()) {
       throw new IllegalArgumentException("no values");
@@ -272,6 +278,12 @@ public final class BenchmarkMain {
     out.append(String.format(Locale.ROOT, "  (for reference: scan/parse at 4x %.2f, parse time 4x/1x %.2f,"
         + " corpus scan/parse %.2f, peak RSS of the benchmark's 1x scan JVM %.0f MiB)%n", four.ratio(),
         four.parseMs() / one.parseMs(), results.get(0).ratio(), one.scanRssMib()));
+    // A median of short runs leaves out a slow spell of the machine that a long run cannot
+    // escape, so with medians the 4x input is measured against a 1x time that saw less of the
+    // machine's slow spells; means take each spell in proportion to its length on both sides.
+    out.append(String.format(Locale.ROOT, "  (with means instead of medians: scan/parse at 1x %.2f, scan time 4x/1x %.2f,"
+        + " parse time 4x/1x %.2f)%n", one.scanMeanMs() / one.parseMeanMs(), four.scanMeanMs() / one.scanMeanMs(),
+        four.parseMeanMs() / one.parseMeanMs()));
     out.append(String.format(Locale.ROOT, "  (round by round: scan/parse at 1x %s; scan time 4x/1x %s)%n",
         joined(one.roundRatios()), joined(IntStream.range(0, four.roundScanMs().size())
             .mapToObj(r -> four.roundScanMs().get(r) / one.roundScanMs().get(r)).toList())));

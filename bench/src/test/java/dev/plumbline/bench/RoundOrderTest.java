@@ -34,5 +34,6 @@ class RoundOrderTest {
   void medianOfOddAndEvenCounts() {
     assertEquals(2.0, BenchmarkMain.median(List.of(3.0, 1.0, 2.0)));
     assertEquals(2.5, BenchmarkMain.median(List.of(4.0, 1.0, 3.0, 2.0)));
+    assertEquals(4.0, BenchmarkMain.mean(List.of(1.0, 2.0, 9.0)));
   }
 }
