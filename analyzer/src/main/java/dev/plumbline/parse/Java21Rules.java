@@ -44,9 +44,9 @@ import java.util.List;
  * slower but the same.
  */
 final class Java21Rules {
-  private static final Field TREE_VISITOR_CHECK = field(TreeVisitorValidator.class, "validator");
-  private static final Field SINGLE_TYPE = field(SingleNodeTypeValidator.class, "type");
-  private static final Field SINGLE_TYPE_CHECK = field(SingleNodeTypeValidator.class, "validator");
+  private static final Field TREE_VISITOR_CHECK = PrivateFields.find(TreeVisitorValidator.class, "validator");
+  private static final Field SINGLE_TYPE = PrivateFields.find(SingleNodeTypeValidator.class, "type");
+  private static final Field SINGLE_TYPE_CHECK = PrivateFields.find(SingleNodeTypeValidator.class, "validator");
 
   /** JavaParser's own validator, for the exact problems of a rejected tree. */
   private static final Validator STANDARD = new Java21Validator();
@@ -290,16 +290,6 @@ final class Java21Rules {
     try {
       return field == null ? null : field.get(owner);
     } catch (IllegalAccessException e) {
-      return null;
-    }
-  }
-
-  private static Field field(Class<?> owner, String name) {
-    try {
-      Field f = owner.getDeclaredField(name);
-      f.setAccessible(true);
-      return f;
-    } catch (NoSuchFieldException | RuntimeException e) {
       return null;
     }
   }

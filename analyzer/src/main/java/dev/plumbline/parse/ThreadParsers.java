@@ -28,10 +28,10 @@ import java.util.Stack;
  * throws, the thread's parsers are dropped and the next parse starts from new ones.
  */
 final class ThreadParsers {
-  private static final Field AST_PARSER = field(JavaParser.class, "astParser");
+  private static final Field AST_PARSER = PrivateFields.find(JavaParser.class, "astParser");
   // The generated classes are not public; their fields are found through the fields' types.
-  private static final Field TOKEN_SOURCE = AST_PARSER == null ? null : field(AST_PARSER.getType(), "token_source");
-  private static final Field WORK_STACK = TOKEN_SOURCE == null ? null : field(TOKEN_SOURCE.getType(), "tokenWorkStack");
+  private static final Field TOKEN_SOURCE = AST_PARSER == null ? null : PrivateFields.find(AST_PARSER.getType(), "token_source");
+  private static final Field WORK_STACK = TOKEN_SOURCE == null ? null : PrivateFields.find(TOKEN_SOURCE.getType(), "tokenWorkStack");
   private static final boolean ACTIVE = AST_PARSER != null && TOKEN_SOURCE != null && WORK_STACK != null
       && WORK_STACK.getType() == Stack.class;
 
@@ -122,16 +122,6 @@ final class ThreadParsers {
   /** This thread's parser for the configuration (for tests). */
   static JavaParser current(boolean mayNameVar) {
     return CURRENT.get().parserFor(mayNameVar);
-  }
-
-  private static Field field(Class<?> owner, String name) {
-    try {
-      Field f = owner.getDeclaredField(name);
-      f.setAccessible(true);
-      return f;
-    } catch (NoSuchFieldException | RuntimeException e) {
-      return null;
-    }
   }
 
   /**

@@ -116,23 +116,13 @@ final class TreeCompactor {
   }
 
   private static Field field(Class<?> owner, String name) {
-    try {
-      Field f = owner.getDeclaredField(name);
-      f.setAccessible(true);
-      return f.getType().isAssignableFrom(ArrayList.class) ? f : null;
-    } catch (NoSuchFieldException | RuntimeException e) {
-      return null;
-    }
+    Field f = PrivateFields.find(owner, name);
+    return f != null && f.getType().isAssignableFrom(ArrayList.class) ? f : null;
   }
 
   private static Field stringField(Class<?> owner, String name) {
-    try {
-      Field f = owner.getDeclaredField(name);
-      f.setAccessible(true);
-      return f.getType() == String.class && !Modifier.isStatic(f.getModifiers()) ? f : null;
-    } catch (NoSuchFieldException | RuntimeException e) {
-      return null;
-    }
+    Field f = PrivateFields.find(owner, name);
+    return f != null && f.getType() == String.class && !Modifier.isStatic(f.getModifiers()) ? f : null;
   }
 
   /** Empty for good: every way of adding an element throws. */
