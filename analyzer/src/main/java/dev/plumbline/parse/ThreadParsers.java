@@ -23,8 +23,10 @@ import java.util.Stack;
  * JavaParser's line separator detection, whose answer is then known
  * ({@link #lineSeparatorWithoutCarriageReturn}).
  *
- * <p>This reaches into two private fields of JavaParser. If a JavaParser version lacks them, the
- * stack stays as it is ({@link #active()} says so): slower, the same trees. After a parse that
+ * <p>This reaches into three fields of JavaParser's (the parser a {@code JavaParser} keeps, its
+ * token manager, that manager's work stack), two of them private. If a JavaParser version lacks
+ * them, the stack stays as it is ({@link #active()} says so, and a test fails): slower, the same
+ * trees. After a parse that
  * throws, the thread's parsers are dropped and the next parse starts from new ones.
  */
 final class ThreadParsers {
