@@ -44,8 +44,13 @@ final class HelperCalls {
   static final int MAX_DEPTH = 2;
   static final int MAX_NODES = 300;
 
-  /** A callee evaluated with given argument values. */
-  record Key(Site callee, List<ShapeValue> arguments) {}
+  /**
+   * A callee evaluated with given argument values at a given depth. The depth belongs in the key:
+   * at the deepest level the callee's own helper calls are not followed, so the same callee and
+   * arguments give a less precise value there, and without the depth which graph ran first would
+   * decide what later calls get from the cache.
+   */
+  record Key(Site callee, List<ShapeValue> arguments, int depth) {}
 
   /** Per callee: which parameters it checks. */
   record Summary(boolean[] checksParameter) {}
@@ -74,7 +79,7 @@ final class HelperCalls {
     if (graph.nodes().size() > MAX_NODES) {
       return null;
     }
-    Key key = new Key(Site.of(decl), args);
+    Key key = new Key(Site.of(decl), args, ev.analysis.depth + 1);
     ShapeValue result;
     if (context.helperResults.containsKey(key)) {
       result = context.helperResults.get(key);

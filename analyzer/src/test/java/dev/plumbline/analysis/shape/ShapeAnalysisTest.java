@@ -120,6 +120,28 @@ class ShapeAnalysisTest {
   }
 
   @Test
+  void whatAHelperGivesDoesNotDependOnWhichMethodCalledItFirst() {
+    // a() reaches g() two helpers deep, where g's own call of k() is not followed; b() calls g()
+    // directly, so k() is followed and the product's mismatch is certain. Before the evaluation
+    // depth was part of the helper cache's key, b() got a()'s less precise value when a() came
+    // first in the file (methods are analyzed in source order, the helpers last here), and the
+    // mismatch was not found.
+    String helpers = """
+          static INDArray k() { return Nd4j.zeros(2, 3); }
+          static INDArray g() { return k(); }
+          static INDArray h() { return g(); }
+        """;
+    String a = "  void a() { INDArray x = h(); }\n";
+    String b = "  void b() { INDArray y = g(); INDArray z = y.mmul(Nd4j.rand(4, 5)); }\n";
+    for (String body : List.of(a + b, b + a)) {
+      ShapeFacts facts = ShapeTestFiles.facts(ND4J + "class T {\n" + body + helpers + "}\n");
+      List<ShapeFacts.Operation> failing = facts.operations().stream().filter(o -> o.outcome().fails()).toList();
+      assertEquals(1, failing.size(), body);
+      assertEquals("[2, 3]", failing.get(0).shape(0).toString(), body);
+    }
+  }
+
+  @Test
   void assertsInTestSourcesAreMarkedAsTestCode() {
     ShapeFacts facts = ShapeTestFiles.context("src/test/java/T.java", ND4J + """
         class T {
