@@ -152,8 +152,9 @@ public final class BenchmarkMain {
       List<Double> roundRatios = new ArrayList<>();
       List<Double> roundScanMs = new ArrayList<>();
       for (int round = 0; round < rounds; round++) {
-        roundScanMs.add(median(scan.timesOfRound(round)));
-        roundRatios.add(median(scan.timesOfRound(round)) / median(parse.timesOfRound(round)));
+        double scanOfRound = median(scan.timesOfRound(round));
+        roundScanMs.add(scanOfRound);
+        roundRatios.add(scanOfRound / median(parse.timesOfRound(round)));
       }
       Input in = inputs.get(i);
       System.out.printf(Locale.ROOT, "cold scan of %s%n", in.name());
