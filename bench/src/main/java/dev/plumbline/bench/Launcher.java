@@ -31,6 +31,21 @@ import java.util.List;
  *       of the 200,000-line project after the parse got cheaper (commit 1d35246), two each:
  *       553 and 653 ms of pauses in 43 collections against 860 and 879 ms in 62; 7.1 to 8.8 s
  *       wall against 9.5 to 9.9 s; 573 MiB resident against 509 MiB.
+ *   <li>the same, with the initial heap at 25% of the memory, the JVM's default maximum
+ *       (measured 2026-12-04, from 3%). The parallel collector makes a full collection whenever
+ *       the old generation's committed space runs short, before it grows it; every full
+ *       collection marks and moves all the trees parsed so far, so their cost grew with the
+ *       project: on the 800,000-line project three to five of them, 3.3 to 5.9 s of each scan
+ *       (GC log), and in a warm JVM the benchmark's 4x scan had either none or one of 3.3 to
+ *       4.5 s, depending on how much heap the previous iteration had left committed. With the
+ *       whole heap committed from the start a scan makes none below the maximum heap. Committed
+ *       pages that nothing has touched are not resident, so the cost is the promoted garbage
+ *       that is no longer collected on the way: cold runs, alternated, three each, same SARIF:
+ *       800,000 lines 21.1 to 24.8 s wall against 27.4 to 31.0 s, 1,486 to 1,490 MiB resident
+ *       against 1,309 to 1,328 MiB; 200,000 lines 6.9 to 7.3 s against 7.2 to 8.1 s, 538 to 540
+ *       MiB against 515 to 521 MiB. The maximum heap stays the JVM's default (see
+ *       {@code LauncherTest}); the larger growth steps still matter where the maximum heap is
+ *       above the initial one, as when a user sets {@code -Xmx} in {@code PLUMBLINE_JAVA_OPTS}.
  * </ul>
  *
  * <p>Only the quick (C1) compiler: a scan is one run of seconds to minutes, and on few cores the
@@ -41,7 +56,7 @@ import java.util.List;
  */
 final class Launcher {
   static final List<String> JVM_OPTIONS = List.of("-XX:+UseParallelGC", "-Xmn128m",
-      "-XX:MaxTenuringThreshold=0", "-XX:InitialRAMPercentage=3",
+      "-XX:MaxTenuringThreshold=0", "-XX:InitialRAMPercentage=25",
       "-XX:TenuredGenerationSizeIncrement=100", "-XX:TieredStopAtLevel=1");
 
   private Launcher() {}
