@@ -8,6 +8,7 @@ import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.HashMap;
 import java.util.HexFormat;
+import java.util.IdentityHashMap;
 import java.util.Map;
 import java.util.regex.Pattern;
 
@@ -24,6 +25,7 @@ final class Fingerprints {
   private static final Pattern WHITESPACE = Pattern.compile("\\s+");
 
   private final Map<String, Integer> occurrences = new HashMap<>();
+  private final Map<Node, String> signatures = new IdentityHashMap<>();
 
   /** Call in report order within one file so occurrence numbers are deterministic. */
   String next(String ruleId, String uri, Node node) {
@@ -33,18 +35,31 @@ final class Fingerprints {
     return sha256(key + "\n#" + occurrence).substring(0, 16);
   }
 
-  private static String enclosingSignature(Node node) {
-    StringBuilder sb = new StringBuilder();
-    Node current = node;
-    while (current != null) {
-      if (current instanceof CallableDeclaration<?> c) {
-        sb.insert(0, "/" + c.getDeclarationAsString(false, false, false));
-      } else if (current instanceof TypeDeclaration<?> t) {
-        sb.insert(0, "/" + t.getNameAsString());
-      }
-      current = current.getParentNode().orElse(null);
+  /**
+   * "/Type/method(params)" of the declarations around {@code node}, outermost first. Memoized per
+   * declaration: a file's findings mostly share a few methods, and printing a signature is costly.
+   */
+  private String enclosingSignature(Node node) {
+    Node declaration = node;
+    while (declaration != null && !isSignaturePart(declaration)) {
+      declaration = declaration.getParentNode().orElse(null);
     }
-    return sb.toString();
+    if (declaration == null) {
+      return "";
+    }
+    String known = signatures.get(declaration);
+    if (known == null) {
+      String own = declaration instanceof CallableDeclaration<?> c
+          ? c.getDeclarationAsString(false, false, false)
+          : ((TypeDeclaration<?>) declaration).getNameAsString();
+      known = enclosingSignature(declaration.getParentNode().orElse(null)) + "/" + own;
+      signatures.put(declaration, known);
+    }
+    return known;
+  }
+
+  private static boolean isSignaturePart(Node node) {
+    return node instanceof CallableDeclaration<?> || node instanceof TypeDeclaration<?>;
   }
 
   private static String sha256(String s) {

@@ -40,6 +40,8 @@ public final class ApiModel {
   private final Map<String, ApiType> types;
   private final Map<String, List<ApiType>> typesBySimpleName;
   private final Map<String, List<ApiMethod>> methodsByOwner;
+  /** Owner, then method name: {@link #lookup} runs for every call the analyses see. */
+  private final Map<String, Map<String, List<ApiMethod>>> methodsByOwnerAndName;
   private final Set<String> packages;
   /** {@link #selfAndSupertypes} of every listed type, computed once: it is asked for on every call. */
   private final Map<String, List<String>> supertypeClosures;
@@ -72,6 +74,15 @@ public final class ApiModel {
     this.types = Map.copyOf(byName);
     this.typesBySimpleName = copyLists(bySimple);
     this.methodsByOwner = copyLists(byOwner);
+    Map<String, Map<String, List<ApiMethod>>> byOwnerAndName = new HashMap<>();
+    this.methodsByOwner.forEach((owner, methods) -> {
+      Map<String, List<ApiMethod>> byMethodName = new LinkedHashMap<>();
+      for (ApiMethod m : methods) {
+        byMethodName.computeIfAbsent(m.name(), k -> new ArrayList<>()).add(m);
+      }
+      byOwnerAndName.put(owner, copyLists(byMethodName));
+    });
+    this.methodsByOwnerAndName = Map.copyOf(byOwnerAndName);
     this.packages = Set.copyOf(pkgs);
     Map<String, List<String>> closures = new HashMap<>();
     for (String name : this.types.keySet()) {
@@ -251,16 +262,26 @@ public final class ApiModel {
   public List<ApiMethod> lookup(String receiverType, String name, int arity) {
     List<ApiMethod> out = new ArrayList<>();
     for (String t : selfAndSupertypes(receiverType)) {
-      for (ApiMethod m : methodsByOwner.getOrDefault(t, List.of())) {
-        // A nearer declaration with the same parameters overrides this one (JLS 8.4.8.1),
-        // possibly with a narrower return type, as DL4J's layer builders' build() do.
-        boolean overridden = out.stream().anyMatch(n -> n.params().equals(m.params()) && n.isStatic() == m.isStatic());
-        if (m.name().equals(name) && m.acceptsArity(arity) && !overridden) {
+      for (ApiMethod m : methodsByOwnerAndName.getOrDefault(t, Map.of()).getOrDefault(name, List.of())) {
+        if (m.acceptsArity(arity) && !overriddenIn(out, m)) {
           out.add(m);
         }
       }
     }
     return out;
+  }
+
+  /**
+   * Whether a nearer declaration with the same parameters overrides {@code m} (JLS 8.4.8.1),
+   * possibly with a narrower return type, as DL4J's layer builders' build() do.
+   */
+  private static boolean overriddenIn(List<ApiMethod> nearer, ApiMethod m) {
+    for (ApiMethod n : nearer) {
+      if (n.isStatic() == m.isStatic() && n.params().equals(m.params())) {
+        return true;
+      }
+    }
+    return false;
   }
 
   /**
