@@ -123,7 +123,8 @@ public final class RandomnessAnalysis {
    * Whether a configuration builder gets a seed, or may get one where we cannot see: a seed call
    * in its chain before the chain leaves the builder ({@code list()}, {@code build()}); or, when
    * the builder is kept in a local variable, a seed call on that variable in the same body; a
-   * builder that escapes counts as seeded (unknown).
+   * builder that escapes, or whose chain goes through a call the model does not know before it
+   * leaves the builder, counts as seeded (unknown).
    */
   private boolean seededBuilder(ObjectCreationExpr creation) {
     Expression current = creation;
@@ -135,6 +136,9 @@ public final class RandomnessAnalysis {
       }
       if (LEAVES_BUILDER.contains(parent.getNameAsString())) {
         return false;
+      }
+      if (m.isEmpty()) {
+        return true; // see chainSeeds
       }
       current = parent;
     }
@@ -239,6 +243,12 @@ public final class RandomnessAnalysis {
       }
       if (LEAVES_BUILDER.contains(call.getNameAsString())) {
         return false;
+      }
+      if (m.isEmpty()) {
+        // A setter the model does not list (optimizationAlgo, miniBatch, an older version's
+        // iterations): its result's type is unknown, so a seed call after it cannot be told from
+        // any other call, and absence of evidence is no finding.
+        return true;
       }
       Node parent = call.getParentNode().orElse(null);
       current = parent instanceof MethodCallExpr p && p.getScope().orElse(null) == call ? p : null;
