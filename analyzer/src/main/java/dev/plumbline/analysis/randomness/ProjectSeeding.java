@@ -17,8 +17,9 @@ import java.util.TreeSet;
 /**
  * Which framework-wide random generators the project seeds anywhere: a call with
  * {@code Effect.SEED} and a {@code scope} attribute (DJL's {@code Engine.setRandomSeed} seeds the
- * generator behind {@code randomSplit} and shuffled sampling). Whether the seeding call runs
- * before the random draw is not checked: any seeding call in the project silences the finding.
+ * generator behind {@code randomSplit} and shuffled sampling), or a call with such a method's
+ * name and arity on a receiver of unknown type. Whether the seeding call runs before the random
+ * draw is not checked: any seeding call in the project silences the finding.
  */
 public final class ProjectSeeding implements ProjectAnalysis {
 
@@ -37,16 +38,29 @@ public final class ProjectSeeding implements ProjectAnalysis {
   public void compute(List<FileContext> files, ProjectIndex index, ProjectFacts out,
       Workers workers) {
     Set<String> scopes = new TreeSet<>();
-    workers.map(files, ProjectSeeding::seededIn).forEach(scopes::addAll);
+    List<ApiMethod> seeders = index.model().methods().stream()
+        .filter(m -> m.effect() == Effect.SEED && m.attribute("scope") != null)
+        .toList();
+    workers.map(files, file -> seededIn(file, seeders)).forEach(scopes::addAll);
     out.put(SeededScopes.class, new SeededScopes(scopes));
   }
 
-  private static Set<String> seededIn(FileContext file) {
+  private static Set<String> seededIn(FileContext file, List<ApiMethod> seeders) {
     Set<String> scopes = new TreeSet<>();
     for (MethodCallExpr call : Subtrees.findAll(file.source().unit(), MethodCallExpr.class)) {
       Optional<ApiMethod> m = file.types().apiMethod(call);
       if (m.isPresent() && m.get().effect() == Effect.SEED && m.get().attribute("scope") != null) {
         scopes.add(m.get().attribute("scope"));
+      } else if (m.isEmpty() && file.types().receiverOf(call).isEmpty()) {
+        // The receiver's type is unknown (an engine reached through a call the model does not
+        // list, as Engine.getEngine(name) or a manager's getEngine()): a call with a seeding
+        // method's name and arity may be that method, and an unseeded draw is reported only
+        // when no seed can be anywhere.
+        for (ApiMethod seeder : seeders) {
+          if (seeder.name().equals(call.getNameAsString()) && seeder.acceptsArity(call.getArguments().size())) {
+            scopes.add(seeder.attribute("scope"));
+          }
+        }
       }
     }
     return scopes;

@@ -1,0 +1,28 @@
+package corpus.repro.unseeded;
+
+import ai.djl.basicdataset.cv.classification.Cifar10;
+import ai.djl.basicdataset.cv.classification.ImageFolder;
+import ai.djl.basicdataset.tabular.CsvDataset;
+import ai.djl.training.dataset.RandomAccessDataset;
+import ai.djl.translate.TranslateException;
+import java.io.IOException;
+
+/**
+ * A greenhouse's leaf photos and sensor tables, split with DJL's engine-wide generator, which
+ * nothing in this project seeds: the concrete dataset classes of DJL's basic datasets draw from it
+ * as every RandomAccessDataset does (randomSplit calls ai.djl.util.RandomUtils.nextInt, read with
+ * javap -c from ai.djl:api 0.36.0).
+ */
+class DjlDatasetsOfTheBasicKinds {
+  RandomAccessDataset[] photos(ImageFolder leaves) throws IOException, TranslateException {
+    return leaves.randomSplit(8, 2); // expect: repro.unseeded-randomness
+  }
+
+  RandomAccessDataset[] sensorTable(CsvDataset readings) throws IOException, TranslateException {
+    return readings.randomSplit(9, 1); // expect: repro.unseeded-randomness
+  }
+
+  RandomAccessDataset[] smallImages(Cifar10 images) throws IOException, TranslateException {
+    return images.randomSplit(3, 1); // expect: repro.unseeded-randomness
+  }
+}
