@@ -3,9 +3,13 @@ package corpus.repro.unseeded;
 import ai.djl.basicdataset.cv.classification.Cifar10;
 import ai.djl.basicdataset.cv.classification.ImageFolder;
 import ai.djl.basicdataset.tabular.CsvDataset;
+import ai.djl.modality.cv.transform.Resize;
+import ai.djl.modality.cv.transform.ToTensor;
+import ai.djl.training.dataset.Dataset;
 import ai.djl.training.dataset.RandomAccessDataset;
 import ai.djl.translate.TranslateException;
 import java.io.IOException;
+import java.nio.file.Path;
 
 /**
  * A greenhouse's leaf photos and sensor tables, split with DJL's engine-wide generator, which
@@ -24,5 +28,30 @@ class DjlDatasetsOfTheBasicKinds {
 
   RandomAccessDataset[] smallImages(Cifar10 images) throws IOException, TranslateException {
     return images.randomSplit(3, 1); // expect: repro.unseeded-randomness
+  }
+
+  ImageFolder shuffledLeafPhotos(Path folder) {
+    return ImageFolder.builder()
+        .setRepositoryPath(folder)
+        .optMaxDepth(2)
+        .addTransform(new Resize(64, 64))
+        .addTransform(new ToTensor())
+        .setSampling(16, true) // expect: repro.unseeded-randomness
+        .build();
+  }
+
+  ImageFolder orderedLeafPhotos(Path folder) {
+    return ImageFolder.builder()
+        .setRepositoryPath(folder)
+        .addTransform(new ToTensor())
+        .setSampling(16, false) // clean: repro.unseeded-randomness
+        .build();
+  }
+
+  Cifar10 shuffledSmallImages() {
+    return Cifar10.builder()
+        .optUsage(Dataset.Usage.TRAIN)
+        .setSampling(32, true) // expect: repro.unseeded-randomness
+        .build();
   }
 }
