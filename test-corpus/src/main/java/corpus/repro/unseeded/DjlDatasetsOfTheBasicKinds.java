@@ -54,4 +54,12 @@ class DjlDatasetsOfTheBasicKinds {
         .setSampling(32, true) // expect: repro.unseeded-randomness
         .build();
   }
+
+  /** The test split is only evaluated: a full pass sums over every row in any order. */
+  Cifar10 shuffledTestImages() {
+    return Cifar10.builder()
+        .optUsage(Dataset.Usage.TEST)
+        .setSampling(32, true) // clean: repro.unseeded-randomness
+        .build();
+  }
 }

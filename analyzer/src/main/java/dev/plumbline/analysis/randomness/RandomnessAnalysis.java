@@ -101,7 +101,7 @@ public final class RandomnessAnalysis {
       if (m.isPresent() && m.get().attribute("shuffleArg") != null && seeded != null && !seeded.seeded("djl")) {
         int i = m.get().intAttribute("shuffleArg", 0);
         if (i < call.getArguments().size() && call.getArgument(i) instanceof BooleanLiteralExpr b
-            && b.getValue()) {
+            && b.getValue() && !buildsTestSet(call)) {
           // Located at the method name: in a builder chain the call itself starts lines earlier.
           facts.add(new RandomnessFacts.Draw(call.getName(), RandomnessFacts.Kind.UNSEEDED_FRAMEWORK_GENERATOR,
               call.getName(), call.getNameAsString() + "(" + String.join(", ",
@@ -169,6 +169,40 @@ public final class RandomnessAnalysis {
       }
     }
     return false;
+  }
+
+  /**
+   * Whether the builder chain around {@code call} selects the test split
+   * ({@code optUsage(Dataset.Usage.TEST)}). Such a set is read for evaluation, where a full pass
+   * sums over every row whatever their order, so a shuffled order changes no reported number.
+   */
+  private static boolean buildsTestSet(MethodCallExpr call) {
+    Expression current = call;
+    while (current instanceof MethodCallExpr c) {
+      if (selectsTestUsage(c)) {
+        return true;
+      }
+      current = c.getScope().orElse(null);
+    }
+    Expression outer = call;
+    while (outer.getParentNode().orElse(null) instanceof MethodCallExpr parent
+        && parent.getScope().orElse(null) == outer) {
+      if (selectsTestUsage(parent)) {
+        return true;
+      }
+      outer = parent;
+    }
+    return false;
+  }
+
+  private static boolean selectsTestUsage(MethodCallExpr c) {
+    if (!c.getNameAsString().equals("optUsage") || c.getArguments().size() != 1) {
+      return false;
+    }
+    Expression usage = c.getArgument(0);
+    return usage instanceof FieldAccessExpr f && f.getNameAsString().equals("TEST")
+            && f.getScope().toString().endsWith("Usage")
+        || usage instanceof NameExpr n && n.getNameAsString().equals("TEST");
   }
 
   /** The outermost call of the builder chain that starts at {@code start}. */

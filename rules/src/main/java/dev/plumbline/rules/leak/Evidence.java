@@ -52,6 +52,12 @@ final class Evidence {
     return Certainty.NONE;
   }
 
+  /** Data rows whose every role is known only from names (a source called "test.csv"). */
+  static boolean rolesOnlyNamed(DataValue data) {
+    return data != null && data.kind() == DataValue.Kind.DATA && !data.roles().isEmpty()
+        && data.guessed().equals(data.roles());
+  }
+
   /** Where the rows became test (or held-out) rows, in this file; else {@code fallback}. */
   static Node origin(FileContext file, DataValue data, Node fallback) {
     Optional<Node> o = data.origins().stream()

@@ -7,6 +7,7 @@ import dev.plumbline.engine.FileContext;
 import dev.plumbline.engine.FindingReporter;
 import dev.plumbline.engine.Rule;
 import dev.plumbline.engine.RuleDescriptor;
+import dev.plumbline.flow.ControlFlowGraph;
 import dev.plumbline.finding.Severity;
 import dev.plumbline.rules.Snippets;
 import java.util.List;
@@ -32,12 +33,15 @@ public final class FitOnTestRule implements Rule {
   public void check(FileContext file, FindingReporter reporter) {
     ProvenanceFacts facts = file.analysis(ProvenanceAnalysis.KEY);
     for (ProvenanceFacts.Fit fit : facts.fits()) {
-      if (fit.learns()) {
+      if (fit.learns() && !splitAfterwards(facts, fit.graph(), fit.data())) {
         report(file, reporter, fit.call(), fit.preprocessorName(), fit.argument(), fit.data(), "",
             ID + ".fix.normalizer");
       }
     }
     for (ProvenanceFacts.Train train : facts.trains()) {
+      if (splitAfterwards(facts, train.graph(), train.data())) {
+        continue;
+      }
       report(file, reporter, train.call(), train.model(), train.argument(), train.data(), "train",
           ID + ".fix.model");
     }
@@ -64,6 +68,16 @@ public final class FitOnTestRule implements Rule {
         .fix(fixKey, learner, Snippets.of(argument))
         .severity(certainty == Evidence.Certainty.CERTAIN ? Severity.ERROR : Severity.WARNING)
         .emit();
+  }
+
+  /**
+   * Rows that only a name calls test and that the same method then splits into parts: the code
+   * treats them as the whole set, so they are not test rows ({@link PreprocessingBeforeSplitRule}
+   * reports a fit on them).
+   */
+  private static boolean splitAfterwards(ProvenanceFacts facts, ControlFlowGraph graph,
+      dev.plumbline.analysis.provenance.DataValue data) {
+    return Evidence.rolesOnlyNamed(data) && !facts.splitsOf(graph, data.lineages()).isEmpty();
   }
 
   private static String join(String what, String variant) {

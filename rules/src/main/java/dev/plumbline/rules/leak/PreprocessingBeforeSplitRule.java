@@ -18,7 +18,8 @@ import java.util.List;
  * A preprocessor or statistic learned from rows that the same code later splits into training
  * and held-out parts: the held-out rows shaped what the model sees, so held-out scores are
  * optimistic. Certain (error) when every path gives whole rows; possible (warning) when some
- * path gives whole rows and another a part.
+ * path gives whole rows and another a part. Rows that only a name calls train or test, and that
+ * the code then splits, count as whole.
  */
 public final class PreprocessingBeforeSplitRule implements Rule {
   public static final String ID = "leak.preprocessing-before-split";
@@ -34,7 +35,9 @@ public final class PreprocessingBeforeSplitRule implements Rule {
   public void check(FileContext file, FindingReporter reporter) {
     ProvenanceFacts facts = file.analysis(ProvenanceAnalysis.KEY);
     for (ProvenanceFacts.Fit fit : facts.fits()) {
-      if (!fit.learns() || fit.data().kind() != DataValue.Kind.DATA || !fit.data().holds(Role.WHOLE)) {
+      boolean namedOnly = Evidence.rolesOnlyNamed(fit.data());
+      if (!fit.learns() || fit.data().kind() != DataValue.Kind.DATA
+          || !fit.data().holds(Role.WHOLE) && !namedOnly) {
         continue;
       }
       List<ProvenanceFacts.Split> splits = facts.splitsOf(fit.graph(), fit.data().lineages());
@@ -42,7 +45,9 @@ public final class PreprocessingBeforeSplitRule implements Rule {
         continue;
       }
       ProvenanceFacts.Split split = splits.get(0);
-      boolean certain = fit.data().onlyWhole();
+      // Rows whose only role comes from a name ("test.csv") and that this code then splits are
+      // the whole set, whatever the name says: the split is stronger evidence than the name.
+      boolean certain = fit.data().onlyWhole() || namedOnly;
       reporter.at(this, fit.call())
           .message(certain ? ID : ID + ".possible", fit.preprocessorName(),
               Snippets.of(fit.argument()), Snippets.of(split.splitData()), Snippets.line(split.call()))
