@@ -73,9 +73,8 @@ final class Launcher {
    * setting {@code madvise}, three and four of each): the 800,000-line project 20.2 to 21.6 s
    * wall against 23.3 to 24.7 s, 1,503 to 1,525 MiB resident against 1,485 to 1,493 MiB; the
    * 200,000-line project 6.8 to 7.3 s against 7.2 to 7.8 s, 541 to 545 MiB against 537 to 538
-   * MiB. Elsewhere (setting
-   * {@code never}, no such file, another system) the JVM would print a warning on every run, so
-   * the option is left out there.
+   * MiB. Elsewhere (setting {@code never}, no such file, another system) the JVM would print a
+   * warning on every run, so the option is left out there.
    */
   static final String HUGE_PAGES = "-XX:+UseTransparentHugePages";
 
