@@ -18,7 +18,6 @@ import com.github.javaparser.ast.validator.postprocessors.Java21PostProcessor;
 import com.github.javaparser.ast.validator.postprocessors.PostProcessors;
 import java.lang.reflect.Field;
 import java.lang.reflect.Method;
-import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -118,8 +117,11 @@ final class Java21Rules {
           POST_PROCESSOR.postProcess(result, config);
         }
         Node root = result.getResult().get(); // absent only where JavaParser's level fails too
-        if (!result.getProblems().isEmpty() || hasProblem(root)) {
+        Subtrees.Layout layout = Subtrees.Layout.of(root);
+        if (!result.getProblems().isEmpty() || hasProblem(layout)) {
           STANDARD.accept(root, new ProblemReporter(result.getProblems()::add));
+        } else {
+          root.setData(Subtrees.Layout.KEY, layout); // the tree stays as laid out: SourceParser reuses it
         }
       }
     });
@@ -166,42 +168,41 @@ final class Java21Rules {
 
   /** True if any check reports a problem on the tree, or fails on it. */
   static boolean hasProblem(Node unit) {
+    return hasProblem(Subtrees.Layout.of(unit));
+  }
+
+  /**
+   * True if any check reports a problem on the tree laid out in {@code layout}, or fails on it.
+   * One pass over the nodes in pre-order; a visitor validator started at a node covers the node's
+   * subtree, the slice up to its subtree end, and starts again only after it.
+   */
+  static boolean hasProblem(Subtrees.Layout layout) {
     boolean[] found = {false};
     ProblemReporter flag = new ProblemReporter((Problem p) -> found[0] = true);
-    boolean[] inVisited = new boolean[SUBTREE_VISITORS.size()];
+    Node[] nodes = layout.preorder;
+    int[] subtreeEnds = layout.subtreeEnds;
+    int[] coveredUntil = new int[SUBTREE_VISITORS.size()];
     try {
       for (Validator whole : WHOLE_TREE_CHECKS) {
-        whole.accept(unit, flag);
+        whole.accept(nodes[0], flag);
         if (found[0]) {
           return true;
         }
       }
-      ArrayDeque<Object> stack = new ArrayDeque<>();
-      stack.push(unit);
-      while (!stack.isEmpty()) {
-        Object top = stack.pop();
-        if (top instanceof EndOfVisit end) {
-          inVisited[end.visitor()] = false;
-          continue;
-        }
-        Node node = (Node) top;
+      for (int i = 0; i < nodes.length; i++) {
+        Node node = nodes[i];
         Dispatch dispatch = DISPATCH.get(node.getClass());
         for (Validator check : dispatch.checks()) {
           check.accept(node, flag);
         }
         for (int k : dispatch.visitors()) {
-          if (!inVisited[k]) {
+          if (i >= coveredUntil[k]) {
             SUBTREE_VISITORS.get(k).visitor().accept(node, flag);
-            inVisited[k] = true;
-            stack.push(new EndOfVisit(k)); // popped once the node's subtree is done
+            coveredUntil[k] = subtreeEnds[i];
           }
         }
         if (found[0]) {
           return true;
-        }
-        List<Node> children = node.getChildNodes();
-        for (int i = children.size() - 1; i >= 0; i--) {
-          stack.push(children.get(i));
         }
       }
       return false;
@@ -235,9 +236,6 @@ final class Java21Rules {
           visitors.stream().mapToInt(Integer::intValue).toArray());
     }
   };
-
-  /** Marks, on the walk's stack, the end of the subtree a visitor validator was started at. */
-  private record EndOfVisit(int visitor) {}
 
   @SuppressWarnings({"unchecked", "rawtypes"})
   private static void split(Validator validator) {

@@ -136,8 +136,12 @@ public final class SourceParser {
    * the tree's empty lists and equal names are shared ({@link TreeCompactor}).
    */
   private void dropTokens(CompilationUnit unit) {
-    Subtrees.index(unit);
-    Subtrees.walk(unit, node -> TreeCompactor.compact(node, strings));
+    Subtrees.Layout layout = unit.containsData(Subtrees.Layout.KEY) ? unit.getData(Subtrees.Layout.KEY) : null;
+    if (layout == null || !layout.isOf(unit)) {
+      layout = Subtrees.Layout.of(unit);
+    }
+    unit.removeData(Subtrees.Layout.KEY);
+    Subtrees.install(layout, node -> TreeCompactor.compact(node, strings));
   }
 
   private static String firstLine(String s) {

@@ -2,6 +2,7 @@ package dev.plumbline.parse;
 
 import com.github.javaparser.Range;
 import com.github.javaparser.ast.CompilationUnit;
+import com.github.javaparser.ast.DataKey;
 import com.github.javaparser.ast.Node;
 import com.github.javaparser.ast.comments.Comment;
 import java.util.ArrayList;
@@ -47,69 +48,107 @@ public final class Subtrees {
   }
 
   /**
-   * Lays out {@code unit}'s nodes in pre-order and gives each node with a range an
-   * {@link IndexedRange}; each node's token range, and that of its comment, is dropped on the way
-   * (see {@link SourceParser}). Iterative, so deeply nested code cannot overflow the stack.
+   * A tree's nodes in pre-order (children in {@link Node#getChildNodes()} order, the root first)
+   * with, for each, one past the last node of its subtree. Made once per file: the parse's
+   * validation walks it ({@link Java21Rules}), then {@link #install} keeps it in the nodes' ranges.
+   */
+  static final class Layout {
+    /** Where a parse leaves the layout of its tree (on the root), for {@link SourceParser}. */
+    static final DataKey<Layout> KEY = new DataKey<>() {};
+
+    final Node[] preorder;
+    final int[] subtreeEnds;
+
+    private Layout(Node[] preorder, int[] subtreeEnds) {
+      this.preorder = preorder;
+      this.subtreeEnds = subtreeEnds;
+    }
+
+    /** Lays out {@code root}'s subtree. Iterative, so deeply nested code cannot overflow the stack. */
+    static Layout of(Node root) {
+      Node[] order = new Node[256];
+      int[] ends = new int[256];
+      int size = 0;
+      // The path from the root to the node being entered: each open node's place in the layout,
+      // its children, and the next of them to enter. Primitive arrays, as this runs on every node
+      // of every file while parsing.
+      int[] place = new int[32];
+      Object[] children = new Object[32];
+      int[] nextChild = new int[32];
+      int depth = 0;
+      Node entering = root;
+      while (true) {
+        if (entering != null) {
+          if (size == order.length) {
+            order = Arrays.copyOf(order, size * 2);
+            ends = Arrays.copyOf(ends, size * 2);
+          }
+          if (depth == place.length) {
+            place = Arrays.copyOf(place, depth * 2);
+            children = Arrays.copyOf(children, depth * 2);
+            nextChild = Arrays.copyOf(nextChild, depth * 2);
+          }
+          order[size] = entering;
+          place[depth] = size;
+          children[depth] = entering.getChildNodes();
+          nextChild[depth] = 0;
+          size++;
+          depth++;
+          entering = null;
+        }
+        int top = depth - 1;
+        List<?> kids = (List<?>) children[top];
+        if (nextChild[top] < kids.size()) {
+          entering = (Node) kids.get(nextChild[top]++);
+        } else {
+          ends[place[top]] = size;
+          children[top] = null;
+          depth--;
+          if (depth == 0) {
+            break;
+          }
+        }
+      }
+      return new Layout(Arrays.copyOf(order, size), ends);
+    }
+
+    boolean isOf(Node root) {
+      return preorder.length > 0 && preorder[0] == root;
+    }
+  }
+
+  /**
+   * Lays out {@code unit}'s nodes in pre-order and {@linkplain #install installs} the layout.
    */
   static void index(CompilationUnit unit) {
-    Node[] order = new Node[256];
-    int[] ends = new int[256];
-    int size = 0;
-    // The path from the root to the node being entered: each open node's place in the layout,
-    // its children, and the next of them to enter. Primitive arrays, as this runs on every node
-    // of every file while parsing.
-    int[] place = new int[32];
-    Object[] children = new Object[32];
-    int[] nextChild = new int[32];
-    int depth = 0;
-    Node entering = unit;
-    while (true) {
-      if (entering != null) {
-        if (size == order.length) {
-          order = Arrays.copyOf(order, size * 2);
-          ends = Arrays.copyOf(ends, size * 2);
-        }
-        if (depth == place.length) {
-          place = Arrays.copyOf(place, depth * 2);
-          children = Arrays.copyOf(children, depth * 2);
-          nextChild = Arrays.copyOf(nextChild, depth * 2);
-        }
-        order[size] = entering;
-        place[depth] = size;
-        children[depth] = entering.getChildNodes();
-        nextChild[depth] = 0;
-        size++;
-        depth++;
-        entering = null;
-      }
-      int top = depth - 1;
-      List<?> kids = (List<?>) children[top];
-      if (nextChild[top] < kids.size()) {
-        entering = (Node) kids.get(nextChild[top]++);
-      } else {
-        ends[place[top]] = size;
-        children[top] = null;
-        depth--;
-        if (depth == 0) {
-          break;
-        }
-      }
-    }
-    Node[] preorder = Arrays.copyOf(order, size);
+    install(Layout.of(unit), node -> {});
+  }
+
+  /**
+   * Gives each node of {@code layout} with a range an {@link IndexedRange}, dropping the node's
+   * token range, and that of its comment, on the way (see {@link SourceParser}); then passes the
+   * node to {@code alsoPerNode}, in pre-order. The tree must not have changed since it was laid out.
+   */
+  static void install(Layout layout, Consumer<Node> alsoPerNode) {
+    Node[] preorder = layout.preorder;
+    int[] ends = layout.subtreeEnds;
     for (int i = 0; i < preorder.length; i++) {
       Node node = preorder[i];
-      Optional<Range> range = node.getRange();
+      Range range = node.getRange().orElse(null);
       node.setTokenRange(null); // also clears the range
-      if (range.isPresent()) {
-        node.setRange(new IndexedRange(range.get(), preorder, i, ends[i]));
+      if (range != null) {
+        node.setRange(new IndexedRange(range, preorder, i, ends[i]));
       }
       // A node's own comment is not among its children: it keeps its range, without tokens.
       Comment comment = node.getComment().orElse(null);
       if (comment != null && !(comment.getRange().orElse(null) instanceof IndexedRange)) {
-        Optional<Range> commentRange = comment.getRange();
+        Range commentRange = comment.getRange().orElse(null);
         comment.setTokenRange(null);
-        commentRange.ifPresent(comment::setRange);
+        if (commentRange != null) {
+          comment.setRange(commentRange);
+        }
       }
+      alsoPerNode.accept(node);
     }
   }
 
